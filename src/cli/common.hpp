@@ -1,0 +1,61 @@
+// Options shared by the computing commands (sample, radiation, table, output)
+// and the parsing of option values with units. This is the only place where
+// user units are converted to the library's.
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include <CLI/CLI.hpp>
+
+#include "mudepth/cross_section.hpp"
+#include "mudepth/material.hpp"
+#include "mudepth/radiation.hpp"
+
+namespace mudepth::cli {
+
+/// How the user described the sample.
+struct SampleOptions {
+    std::string formula;
+    std::string material;
+    std::string density;        ///< g/cm³
+    std::string packing;        ///< fraction
+    std::string bulk_density;   ///< g/cm³
+    std::string cell;           ///< "a b c alpha beta gamma", Å and degrees
+    std::string formula_units;  ///< Z
+    std::vector<std::string> phases;
+    std::string phase_basis = "weight";
+};
+
+struct RadiationOptions {
+    std::string energy;      ///< keV
+    std::string wavelength;  ///< Å
+    std::string source;      ///< ANODE[:LINE]
+};
+
+void add_sample_options(CLI::App& app, SampleOptions& options);
+void add_radiation_options(CLI::App& app, RadiationOptions& options);
+void add_table_option(CLI::App& app, std::string& table);
+
+/// The material the options describe; throws InputError naming the option.
+Material build_material(const SampleOptions& options);
+
+/// The radiation the options describe; exactly one of --energy, --wavelength, --source.
+Radiation build_radiation(const RadiationOptions& options);
+
+CrossSectionTable build_table(const std::string& table);
+
+/// Refuses an empty option value (`--energy ""`).
+const CLI::Validator& nonempty();
+
+/// A finite number from an option's text; throws InputError "--name: 'x' is not a number".
+double parse_number(const std::string& option, const std::string& text);
+
+/// A length with unit suffix nm, um (or µm), mm, cm; a bare number means mm. Returns cm.
+double parse_length_cm(const std::string& option, const std::string& text);
+
+/// A positive whole number.
+std::size_t parse_count(const std::string& option, const std::string& text);
+
+}  // namespace mudepth::cli
