@@ -9,7 +9,7 @@ string(APPEND body "namespace mudepth::data {\n\n")
 string(APPEND body "const std::vector<std::pair<std::string_view, std::string_view>>& builtin_composition_texts() {\n")
 string(APPEND body "    static const std::vector<std::pair<std::string_view, std::string_view>> texts = {\n")
 foreach(f IN LISTS files)
-  get_filename_component(stem "${f}" NAME_WE)
+  get_filename_component(stem "${f}" NAME_WLE)
   file(READ "${f}" text)
   # A raw string literal with a delimiter that cannot appear in the files.
   string(APPEND body "        {\"${stem}\", R\"mudepth(${text})mudepth\"},\n")

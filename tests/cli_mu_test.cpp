@@ -102,6 +102,26 @@ TEST(CliScan, JsonAndCsv) {
     EXPECT_NE(csv.out.find("\n10,"), std::string::npos);
 }
 
+TEST(CliScan, PlotIsAnSvgWithUnits) {
+    const std::string path = ::testing::TempDir() + "/mudepth_scan_plot.svg";
+    std::remove(path.c_str());
+    const auto r = run_mudepth({"scan", "--formula", "Cu", "--from", "5", "--to", "50", "--plot", path});
+    ASSERT_EQ(r.status, 0) << r.err;
+    std::ifstream in(path);
+    std::stringstream text;
+    text << in.rdbuf();
+    const std::string svg = text.str();
+    EXPECT_EQ(svg.rfind("<?xml", 0), 0u);
+    EXPECT_NE(svg.find("</svg>"), std::string::npos);
+    EXPECT_NE(svg.find("photon energy (keV)"), std::string::npos);
+    EXPECT_NE(svg.find("μ/ρ (cm²/g)"), std::string::npos);
+    EXPECT_NE(svg.find("Cu K"), std::string::npos);  // the edge is marked
+    // xmllint (libxml2-utils) or rsvg-convert may be absent; when rsvg-convert is there it must render.
+    if (run_shell("command -v rsvg-convert >/dev/null").status == 0)
+        EXPECT_EQ(run_shell("rsvg-convert '" + path + "' -o /dev/null").status, 0);
+    std::remove(path.c_str());
+}
+
 TEST(CliMaterials, ListsTheLibrary) {
     const auto r = run_mudepth({"materials"});
     EXPECT_EQ(r.status, 0);

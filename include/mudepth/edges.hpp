@@ -22,9 +22,10 @@ std::vector<NearbyEdge> edges_near(const Material& material, double energy_keV,
 /// Edges of the material's elements between two energies, sorted (for scans).
 std::vector<NearbyEdge> edges_between(const Material& material, double from_keV, double to_keV);
 
-/// Lines below this energy are absorbed in the air path and detector window
-/// before they count (about 2 keV: a few cm of air stop them; common practice).
-inline constexpr double kDetectableFluorescence_keV = 2.0;
+/// Lines below this energy are mostly absorbed in the air path and the
+/// detector window before they count (about 3 keV, common practice: at 3 keV
+/// air attenuates by 1/e in about 5 cm).
+inline constexpr double kDetectableFluorescence_keV = 3.0;
 
 struct FluorescenceWarning {
     int Z;

@@ -147,8 +147,9 @@ void print_human(const MuReport& r) {
     print_field(out, "Sample", r.material.name);
     print_field(out, "Density used", density_text(r.material) +
                                          (r.material.density_source.empty() ? "" : " (" + r.material.density_source + ")"));
-    print_field(out, "Radiation", r.radiation.label + ": " + fmt(r.radiation.energy_keV, 6) + " keV, " +
-                                      fmt(r.radiation.wavelength_A(), 7) + " Å");
+    const bool by_energy = r.radiation.label.ends_with("keV");
+    print_field(out, "Radiation", (by_energy ? "" : r.radiation.label + ": ") + fmt(r.radiation.energy_keV, 6) +
+                                      " keV, " + fmt(r.radiation.wavelength_A(), 7) + " Å");
     print_field(out, "Cross sections", std::string(to_string(a.table)) +
                                            (a.table == CrossSectionTable::elam ? " (Elam, Ravel & Sieber 2002)"
                                                                                : " (Chantler 2000, NIST FFAST)"));

@@ -7,6 +7,7 @@
 #include "cli/commands.hpp"
 #include "cli/common.hpp"
 #include "cli/output.hpp"
+#include "cli/plot.hpp"
 #include "mudepth/attenuation.hpp"
 #include "mudepth/edges.hpp"
 #include "mudepth/energy_grid.hpp"
@@ -25,6 +26,7 @@ struct ScanOptions {
     std::string spacing = "log";
     bool json = false;
     bool csv = false;
+    std::string plot;
 };
 
 struct ScanPoint {
@@ -32,6 +34,26 @@ struct ScanPoint {
     MassAttenuation mass_attenuation;
     double mu_per_cm;
 };
+
+Plot scan_plot(const Material& material, const std::vector<ScanPoint>& points, const std::vector<NearbyEdge>& edges,
+               GridSpacing spacing) {
+    Plot plot;
+    plot.title = "Mass attenuation of " + material.name;
+    plot.x_label = "photon energy (keV)";
+    plot.y_label = "μ/ρ (cm²/g)";
+    plot.x_log = spacing == GridSpacing::log;
+    PlotSeries total{"total", {}, {}}, photo{"photoelectric", {}, {}};
+    for (const auto& p : points) {
+        total.x.push_back(p.energy_keV);
+        total.y.push_back(p.mass_attenuation.total_cm2_g());
+        photo.x.push_back(p.energy_keV);
+        photo.y.push_back(p.mass_attenuation.photoelectric_cm2_g);
+    }
+    plot.y_log = spans_decades(total.y, 1.0);
+    plot.series = {total, photo};
+    for (const auto& e : edges) plot.markers.push_back({e.energy_keV, e.label + " " + e.level});
+    return plot;
+}
 
 void run_scan(const ScanOptions& o) {
     const Material material = build_material(o.sample);
@@ -47,6 +69,7 @@ void run_scan(const ScanOptions& o) {
         points.push_back({e, m, material.density_g_cm3() * m.total_cm2_g()});
     }
     const auto edges = edges_between(material, from, to);
+    if (!o.plot.empty()) write_svg(scan_plot(material, points, edges, parse_grid_spacing(o.spacing)), o.plot);
 
     if (o.json) {
         nlohmann::json j;
@@ -116,6 +139,9 @@ void register_scan(CLI::App& sub) {
         ->type_name("SPACING")->capture_default_str()->check(nonempty())->group("Scan");
     auto* json = sub.add_flag("--json", o->json, "Print one JSON document");
     sub.add_flag("--csv", o->csv, "Print CSV")->excludes(json);
+    sub.add_option("--plot", o->plot, "Also draw μ/ρ versus energy into this SVG file")
+        ->type_name("FILE.svg")
+        ->check(nonempty());
     sub.callback([o] { run_scan(*o); });
 }
 
