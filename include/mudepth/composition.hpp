@@ -28,8 +28,10 @@ Composition parse_composition(std::string_view text, std::string_view name, std:
 Composition load_composition_file(const std::filesystem::path& path);
 
 /// A composition by name (directories on MUDEPTH_COMPOSITION_PATH first, then
-/// the built-in library) or by path (anything containing '/' or ending ".toml").
-/// Throws InputError "unknown material 'x'" listing close names.
+/// the built-in library, whose names also match case-insensitively) or by path
+/// (anything containing '/' or ending ".toml"). Throws InputError "unknown
+/// material 'x'; did you mean 'y'?" with the built-in names; FileError if a
+/// file cannot be read. File format: docs/compositions.md.
 Composition find_composition(std::string_view name_or_path);
 
 /// Names of the built-in compositions, sorted.

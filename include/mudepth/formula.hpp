@@ -25,8 +25,11 @@ struct Formula {
 
 /// Parses a formula. Grammar: element symbols Z = 1..98 plus D and T, integer or
 /// decimal counts, nested ( ) and [ ], hydrate parts after '.' or '·' (U+00B7)
-/// or '*' with an optional leading count. Throws InputError whose message names
-/// the 1-based column, e.g. "unmatched ')' at column 6".
+/// or '*' with an optional leading count. A '.' between digits is a decimal
+/// point unless a water part follows (CuSO4.5H2O); spaces are allowed only at
+/// the ends and around a hydrate separator (full rules: docs/compositions.md).
+/// Throws InputError whose message names the formula and the 1-based column in
+/// characters, e.g. "formula 'Fe2O3)': unmatched ')' at column 6".
 Formula parse_formula(std::string_view text);
 
 }  // namespace mudepth
