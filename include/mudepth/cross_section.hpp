@@ -28,10 +28,15 @@ struct MassAttenuation {
 
 /// μ/ρ of element Z at energy_keV (1..500 keV) from the chosen table.
 /// Elam: natural cubic splines in (ln E, ln σ) with the published second
-/// derivatives, never across an edge; at an edge energy the value above it.
-/// Chantler: log-log linear on its grid; the table gives photoelectric and the
-/// sum of coherent + incoherent scattering, which is split in Elam's ratio.
-/// Throws InputError for Z out of range (Chantler: Z > 92) or energy outside 1..500 keV.
+/// derivatives, never across an edge; at an edge energy the value above it
+/// (also within 0.01% below the tabulated edge, the precision to which the
+/// table stores it, so the energies edges() reports count as at the edge).
+/// Chantler: log-log linear on its grid (thinned to 0.1%); the table gives
+/// photoelectric and the sum of coherent + incoherent scattering (FFAST's
+/// [μ/ρ]coh+inc), which is split in Elam's coherent : incoherent ratio at that energy.
+/// Cheap: one logarithm, a binary search per grid, no allocation.
+/// Throws InputError for Z out of range (Chantler: Z > 92) or energy outside
+/// 1..500 keV (NaN and infinities included).
 MassAttenuation element_mass_attenuation(int Z, double energy_keV,
                                          CrossSectionTable table = CrossSectionTable::elam);
 
@@ -42,6 +47,8 @@ struct ScatteringFactors {
 };
 
 /// Chantler f1 and f2 of element Z (1..92) at energy_keV; throws InputError above Z = 92.
+/// f1 includes FFAST's relativistic and nuclear-Thomson terms and is
+/// interpolated linearly in ln E; f2 log-log.
 ScatteringFactors chantler_scattering_factors(int Z, double energy_keV);
 
 /// Where the cross-section tables came from, for --version.

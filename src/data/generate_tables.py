@@ -4,12 +4,19 @@ Debian ships in python3-xraydb (an SQLite file; public-domain data).
 
     python3 src/data/generate_tables.py [--db PATH]
 
-Writes src/data/element_data.cpp (symbols, masses, densities, edges, lines).
-Run it from any directory; it writes next to itself. The generated files are
-committed: the program reads no data file at run time.
+Writes, next to itself (run it from any directory):
+  element_data.cpp   symbols, masses, densities, edges, lines;
+  elam_data.cpp      Elam, Ravel & Sieber (2002) photoabsorption, coherent and
+                     incoherent cross sections with their log-log spline
+                     second derivatives, Z = 1..98;
+  chantler_data.cpp  Chantler (2000) f1, f2, photoabsorption and scattering,
+                     Z = 1..92, on a grid thinned to 0.1% (see thin_chantler).
+The generated files are committed: the program reads no data file at run time.
 """
 import argparse
+import bisect
 import json
+import math
 import os
 import sqlite3
 import subprocess
@@ -114,12 +121,309 @@ def write_element_data(con, path):
         f.write("\n".join(out) + "\n")
 
 
+# ---------------------------------------------------------------------------
+# Elam, Ravel & Sieber (2002): log-log cubic splines.
+#
+# The database stores, per element, ln(E/eV), ln(sigma/(cm2/g)) and the second
+# derivatives d2 ln(sigma) / d(ln E)2 of a natural cubic spline. An absorption
+# edge appears as a repeated energy: the first copy carries the value below the
+# edge, the second the value above; the spline never crosses it.
+#
+# Cleaning, each step printed when the script runs:
+#  * a node repeated exactly (same energy, value and derivative) is dropped: it
+#    carries no information (every element has one at 1000 eV; Po, Ra and Pu
+#    have a third copy at an edge);
+#  * a node whose energy is below its predecessor's is dropped (Cm: a node at
+#    4000 eV listed after the M5 edge at 4009 eV);
+#  * nothing else: the nodes are kept exactly as stored (the evaluation then
+#    agrees with xraylib's CS_Photo, CS_Rayl and CS_Compt to 1e-13).
+# ln E is stored to 6 significant digits (4 decimals above ln E = 10, i.e.
+# 22 keV), so a step may sit up to about 5e-5 in ln E (0.005% in energy) away
+# from the edge energy of the xray_levels table (which mudepth::edges()
+# reports). check_steps_match_edges verifies that every step is within one unit
+# of that 6th digit of an edge; the C++ evaluation takes energies that close
+# below a step as at the step (the value above the edge).
+# ---------------------------------------------------------------------------
+
+
+def rounding_unit(x):
+    """One unit in the 6th significant digit of x (twice the rounding error)."""
+    return 10.0 ** (math.floor(math.log10(abs(x))) - 5)
+
+
+def clean_nodes(symbol, what, nodes, notes):
+    """nodes: tuples whose first item is ln(E/eV). Returns the cleaned list."""
+    out = []
+    for node in nodes:
+        if out and node == out[-1]:
+            notes.append(f"{symbol} {what}: dropped repeated node at {math.exp(node[0]):.6g} eV")
+            continue
+        if out and node[0] < out[-1][0]:
+            notes.append(f"{symbol} {what}: dropped out-of-order node at {math.exp(node[0]):.6g} eV")
+            continue
+        out.append(node)
+    return out
+
+
+def check_steps_match_edges(symbol, nodes, edge_log_energies):
+    """Largest |ln E_step - ln E_edge| over the steps (repeated energies) of nodes."""
+    worst = 0.0
+    for a, b in zip(nodes, nodes[1:]):
+        if a[0] == b[0]:
+            d = min(abs(e - a[0]) for e in edge_log_energies)
+            assert d <= rounding_unit(a[0]), (symbol, math.exp(a[0]), "step matches no edge")
+            worst = max(worst, d)
+    return worst
+
+
+def elam_tables(con, symbol, notes):
+    photo = [json.loads(c) for c in con.execute(
+        "select log_energy, log_photoabsorption, log_photoabsorption_spline "
+        "from photoabsorption where element = ?", (symbol,)).fetchone()]
+    scatter = [json.loads(c) for c in con.execute(
+        "select log_energy, log_coherent_scatter, log_coherent_scatter_spline, "
+        "log_incoherent_scatter, log_incoherent_scatter_spline "
+        "from scattering where element = ?", (symbol,)).fetchone()]
+    assert len({len(c) for c in photo}) == 1 and len({len(c) for c in scatter}) == 1
+    photo = clean_nodes(symbol, "photoabsorption", list(zip(*photo)), notes)
+    scatter = clean_nodes(symbol, "scattering", list(zip(*scatter)), notes)
+    assert all(a[0] < b[0] for a, b in zip(scatter, scatter[1:])), symbol
+    return photo, scatter
+
+
+def elam_eval(nodes, col, x):
+    """Natural cubic spline with stored second derivatives (Press et al.,
+    Numerical Recipes, eq. 3.3.3): the same evaluation as the C++ code."""
+    xs = [n[0] for n in nodes]
+    i = min(max(bisect.bisect_right(xs, x) - 1, 0), len(nodes) - 2)
+    h = xs[i + 1] - xs[i]
+    a = (xs[i + 1] - x) / h
+    b = 1.0 - a
+    y0, d0 = nodes[i][col], nodes[i][col + 1]
+    y1, d1 = nodes[i + 1][col], nodes[i + 1][col + 1]
+    return a * y0 + b * y1 + ((a * a * a - a) * d0 + (b * b * b - b) * d1) * h * h / 6.0
+
+
+def rnum(x):
+    """Shortest text that reads back as the same double (the database's digits)."""
+    return repr(float(x))
+
+
+def write_elam_data(con, path):
+    symbols = element_symbols(con)
+    notes = []
+    photo_all, scatter_all = [], []
+    worst_step = 0.0
+    for z in range(1, MAX_Z + 1):
+        edges = [math.log(e) for (e,) in con.execute(
+            "select absorption_edge from xray_levels where element = ?", (symbols[z],))]
+        p, s = elam_tables(con, symbols[z], notes)
+        worst_step = max(worst_step, check_steps_match_edges(symbols[z], p, edges))
+        photo_all.append(p)
+        scatter_all.append(s)
+    for n in notes:
+        print("elam:", n)
+    print(f"elam: every step lies within {worst_step:.2e} (ln E) of an xray_levels edge")
+
+    out = [header(con, "Elam, Ravel & Sieber (2002) photoabsorption, coherent and incoherent\n"
+                       "// cross sections (cm2/g), Z = 1..98, with the second derivatives of their\n"
+                       "// natural cubic splines in (ln E, ln sigma). See generate_tables.py for the\n"
+                       "// cleaning applied (repeated nodes dropped, one out-of-order node dropped).")]
+    out.append('#include <iterator>\n\n#include "data/tables.hpp"\n\nnamespace mudepth::data {\n')
+    out.append(f'const char* const kElamDataSource = {cstr("Elam, Ravel & Sieber (2002) from " + db_version(con) + ", python3-xraydb " + package_version())};\n')
+
+    def block(name, kind, tables, fmt, columns):
+        begins = [0]
+        lines = [f"// {columns}", f"const {kind} {name}[] = {{"]
+        for z, nodes in enumerate(tables, start=1):
+            lines.append(f"    // Z = {z}, {symbols[z]}: {len(nodes)} nodes, "
+                         f"{math.exp(nodes[0][0]):.6g}..{math.exp(nodes[-1][0]):.6g} eV")
+            for node in nodes:
+                lines.append("    {" + ", ".join(fmt(v) for v in node) + "},")
+            begins.append(begins[-1] + len(nodes))
+        lines.append("};")
+        lines.append(f"static_assert(std::size({name}) == {begins[-1]});")
+        lines.append(f"constexpr std::array<std::size_t, kElementCount + 1> {name}Begin = {{{{"
+                     + ", ".join(map(str, begins)) + "}};")
+        lines.append(f"static_assert({name}Begin.back() == std::size({name}));\n")
+        return lines, begins[-1]
+
+    lines, n_photo = block("kElamPhoto", "ElamPhotoNode", photo_all, rnum,
+                           "ln(E/eV), ln(photoabsorption/(cm2/g)), its second derivative")
+    out += lines
+    lines, n_scatter = block("kElamScatter", "ElamScatterNode", scatter_all, rnum,
+                             "ln(E/eV), ln(coherent/(cm2/g)), its second derivative, "
+                             "ln(incoherent/(cm2/g)), its second derivative")
+    out += lines
+    out.append("}  // namespace mudepth::data")
+    with open(path, "w") as f:
+        f.write("\n".join(out) + "\n")
+    print(f"elam: {n_photo} photoabsorption nodes, {n_scatter} scattering nodes -> {path}")
+    return photo_all, scatter_all
+
+
+# ---------------------------------------------------------------------------
+# Chantler (2000), NIST FFAST, as stored in the database's Chantler table:
+#   energy (eV); f1 stored as f1 - Z (the total f1, which includes FFAST's
+#   relativistic and nuclear Thomson terms, is Z + stored); f2 (e/atom);
+#   mu_photo, mu_incoh, mu_total (cm2/g).
+# mu_incoh is NOT incoherent scattering alone: it is coherent + incoherent
+# scattering combined, FFAST's [mu/rho]coh+inc column (check_chantler_columns
+# compares it with Elam's coherent + incoherent). mu_total = mu_photo + mu_incoh
+# to 1e-6, so mu_total is not kept.
+#
+# Interpolation (as the C++ code does): f2, mu_photo and scattering log-log
+# linear; f1 (total, Z + f', which may dip steeply at an edge) linear in ln E,
+# since f' changes sign and has no logarithm.
+# The grid is cut to the program's 1..500 keV (plus one node beyond each end) and
+# thinned greedily: a node is dropped when every original node that the
+# interpolation would skip is reproduced within CHANTLER_TOLERANCE (relative)
+# for every kept column. Checked again against the full grid afterwards.
+# ---------------------------------------------------------------------------
+CHANTLER_MAX_Z = 92
+CHANTLER_TOLERANCE = 1e-3
+ENERGY_MIN_EV = 1000.0
+ENERGY_MAX_EV = 500000.0
+
+
+def element_symbols(con):
+    return {z: s for z, s in con.execute(
+        "select atomic_number, element from elements where atomic_number <= ?", (MAX_Z,))}
+
+
+def chantler_columns(con, symbol, z):
+    e, f1, f2, mp, mi, mt = [json.loads(c) for c in con.execute(
+        "select energy, f1, f2, mu_photo, mu_incoh, mu_total from Chantler where element = ?",
+        (symbol,)).fetchone()]
+    for p, i, t in zip(mp, mi, mt):
+        assert abs(p + i - t) <= 1e-6 * t, (symbol, "mu_total != mu_photo + mu_incoh")
+    lo = max(k for k in range(len(e)) if e[k] <= ENERGY_MIN_EV)
+    hi = min(k for k in range(len(e)) if e[k] >= ENERGY_MAX_EV)
+    rows = []
+    for k in range(lo, hi + 1):
+        assert f2[k] > 0 and mp[k] > 0 and mi[k] > 0, (symbol, e[k])
+        # ln E, total f1, ln f2, ln mu_photo, ln mu_scatter
+        rows.append((math.log(e[k]), z + f1[k], math.log(f2[k]), math.log(mp[k]), math.log(mi[k])))
+    assert all(a[0] < b[0] for a, b in zip(rows, rows[1:])), symbol
+    return rows
+
+
+def chantler_error(a, b, row):
+    """Largest relative error over the columns when row is interpolated from a, b."""
+    t = (row[0] - a[0]) / (b[0] - a[0])
+    worst = 0.0
+    for c in range(1, 5):
+        v = a[c] + t * (b[c] - a[c])
+        if c == 1:  # total f1, linear in ln E
+            err = abs(v - row[c]) / abs(row[c])
+        else:       # log of the value
+            err = abs(math.expm1(v - row[c]))
+        worst = max(worst, err)
+    return worst
+
+
+def thin_chantler(rows, tol):
+    keep = [0]
+    a = 0
+    while a < len(rows) - 1:
+        b = a + 1
+        while b + 1 < len(rows) and all(
+                chantler_error(rows[a], rows[b + 1], rows[k]) < tol for k in range(a + 1, b + 1)):
+            b += 1
+        keep.append(b)
+        a = b
+    return [rows[k] for k in keep]
+
+
+def chantler_check(full, thin):
+    """Worst relative error per column of the thinned grid over the full grid."""
+    xs = [r[0] for r in thin]
+    worst = [0.0] * 5
+    for row in full:
+        i = min(max(bisect.bisect_right(xs, row[0]) - 1, 0), len(thin) - 2)
+        a, b = thin[i], thin[i + 1]
+        t = (row[0] - a[0]) / (b[0] - a[0])
+        for c in range(1, 5):
+            v = a[c] + t * (b[c] - a[c])
+            err = abs(v - row[c]) / abs(row[c]) if c == 1 else abs(math.expm1(v - row[c]))
+            worst[c] = max(worst[c], err)
+    return worst[1:]
+
+
+def check_chantler_columns(con, elam_photo, elam_scatter, symbols):
+    """Evidence that mu_incoh is coherent + incoherent: its ratio to Elam's sum
+    and to Elam's incoherent alone, at 8 keV, for a few elements."""
+    x = math.log(8000.0)
+    for z in (6, 29, 82):
+        e, mi = [json.loads(c) for c in con.execute(
+            "select energy, mu_incoh from Chantler where element = ?", (symbols[z],)).fetchone()]
+        k = bisect.bisect_right(e, 8000.0) - 1
+        t = (x - math.log(e[k])) / (math.log(e[k + 1]) - math.log(e[k]))
+        chantler = math.exp((1 - t) * math.log(mi[k]) + t * math.log(mi[k + 1]))
+        coh = math.exp(elam_eval(elam_scatter[z - 1], 1, x))
+        inc = math.exp(elam_eval(elam_scatter[z - 1], 3, x))
+        print(f"chantler: {symbols[z]} 8 keV mu_incoh/(Elam coh+incoh) = {chantler / (coh + inc):.3f}, "
+              f"mu_incoh/(Elam incoh) = {chantler / inc:.1f}")
+        assert abs(chantler / (coh + inc) - 1) < 0.1
+
+
+def write_chantler_data(con, path, tol, elam_photo, elam_scatter):
+    symbols = element_symbols(con)
+    check_chantler_columns(con, elam_photo, elam_scatter, symbols)
+    tables = []
+    full_count = 0
+    worst = [0.0] * 4
+    for z in range(1, CHANTLER_MAX_Z + 1):
+        full = chantler_columns(con, symbols[z], z)
+        thin = thin_chantler(full, tol)
+        w = chantler_check(full, thin)
+        worst = [max(p, q) for p, q in zip(worst, w)]
+        assert max(w) < tol, (symbols[z], w)
+        full_count += len(full)
+        tables.append(thin)
+    n = sum(len(t) for t in tables)
+    print(f"chantler: {full_count} nodes in 1..500 keV thinned to {n} "
+          f"({min(map(len, tables))}..{max(map(len, tables))} per element); worst relative "
+          f"error against the full grid: f1 {worst[0]:.2e}, f2 {worst[1]:.2e}, "
+          f"photo {worst[2]:.2e}, scattering {worst[3]:.2e}")
+
+    out = [header(con, "Chantler (2000) NIST FFAST form factors and attenuation, Z = 1..92,\n"
+                       f"// 1..500 keV, thinned so that interpolation reproduces every original node\n"
+                       f"// within {tol:g} relative (worst: f1 {worst[0]:.1e}, f2 {worst[1]:.1e}, "
+                       f"photo {worst[2]:.1e}, scattering {worst[3]:.1e}).\n"
+                       "// The scattering column is the database's mu_incoh, which is coherent +\n"
+                       "// incoherent scattering combined (FFAST's [mu/rho]coh+inc).")]
+    out.append('#include <iterator>\n\n#include "data/tables.hpp"\n\nnamespace mudepth::data {\n')
+    out.append(f'const char* const kChantlerDataSource = {cstr("Chantler (2000) from " + db_version(con) + ", python3-xraydb " + package_version())};\n')
+    out.append("// ln(E/eV), total f1 = Z + f' (e/atom), ln f2, ln(photoabsorption/(cm2/g)),")
+    out.append("// ln((coherent + incoherent scattering)/(cm2/g))")
+    out.append("const ChantlerNode kChantler[] = {")
+    begins = [0]
+    for z, nodes in enumerate(tables, start=1):
+        out.append(f"    // Z = {z}, {symbols[z]}: {len(nodes)} nodes")
+        for node in nodes:
+            out.append("    {" + ", ".join("%.10g" % v for v in node) + "},")
+        begins.append(begins[-1] + len(nodes))
+    out.append("};")
+    out.append(f"static_assert(std::size(kChantler) == {begins[-1]});")
+    out.append("constexpr std::array<std::size_t, kChantlerElementCount + 1> kChantlerBegin = {{"
+               + ", ".join(map(str, begins)) + "}};")
+    out.append("static_assert(kChantlerBegin.back() == std::size(kChantler));\n")
+    out.append("}  // namespace mudepth::data")
+    with open(path, "w") as f:
+        f.write("\n".join(out) + "\n")
+    print(f"chantler: -> {path}")
+
 def main():
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument("--db", default=DEFAULT_DB, help="path of xraydb.sqlite")
+    ap.add_argument("--tolerance", type=float, default=CHANTLER_TOLERANCE,
+                    help="relative error allowed when thinning the Chantler grid [%(default)g]")
     args = ap.parse_args()
     con = sqlite3.connect(f"file:{args.db}?mode=ro", uri=True)
     write_element_data(con, os.path.join(HERE, "element_data.cpp"))
+    photo, scatter = write_elam_data(con, os.path.join(HERE, "elam_data.cpp"))
+    write_chantler_data(con, os.path.join(HERE, "chantler_data.cpp"), args.tolerance, photo, scatter)
 
 
 if __name__ == "__main__":
