@@ -9,5 +9,9 @@ namespace mudepth::cli {
 void register_mu(CLI::App& sub);
 void register_scan(CLI::App& sub);
 void register_materials(CLI::App& sub);
+void register_depth(CLI::App& sub);
+void register_film(CLI::App& sub);
+void register_plate(CLI::App& sub);
+void register_cylinder(CLI::App& sub);
 
 }  // namespace mudepth::cli

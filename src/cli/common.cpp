@@ -78,6 +78,45 @@ std::size_t parse_count(const std::string& option, const std::string& text) {
     return value;
 }
 
+std::vector<double> parse_angles_deg(const std::string& option, const std::string& text) {
+    const std::string t = trim(text);
+    if (t.empty()) throw InputError(option + ": empty value; give START:STOP:STEP or a list such as 20,40,60");
+    if (t.find(':') != std::string::npos) {
+        const auto fields = split(t, ':');
+        if (fields.size() != 3)
+            throw InputError(option + ": '" + text + "' is not START:STOP:STEP (degrees)");
+        const double start = parse_number(option + " start", fields[0]);
+        const double stop = parse_number(option + " stop", fields[1]);
+        const double step = parse_number(option + " step", fields[2]);
+        if (step <= 0) throw InputError(option + ": step " + fields[2] + " must be positive");
+        if (stop < start) throw InputError(option + ": stop " + fields[1] + " is below start " + fields[0]);
+        const double intervals = std::floor((stop - start) / step + 1e-9);
+        if (intervals + 1 > static_cast<double>(kMaxAnglePoints))
+            throw InputError(option + ": '" + text + "' gives more than " + std::to_string(kMaxAnglePoints) +
+                             " angles");
+        const auto n = static_cast<std::size_t>(intervals) + 1;
+        std::vector<double> out(n);
+        for (std::size_t i = 0; i < n; ++i) out[i] = start + static_cast<double>(i) * step;
+        return out;
+    }
+    std::vector<double> out;
+    for (const auto& f : split(t, ',')) {
+        if (out.size() >= kMaxAnglePoints)
+            throw InputError(option + ": more than " + std::to_string(kMaxAnglePoints) + " angles");
+        out.push_back(parse_number(option, f));
+    }
+    return out;
+}
+
+void add_two_theta_option(CLI::App& app, std::string& two_theta, const std::string& default_value) {
+    two_theta = default_value;
+    auto* o = app.add_option("--two-theta", two_theta, "Scattering angles 2θ: START:STOP:STEP or a list a,b,c [degrees]")
+                  ->type_name("ANGLES")
+                  ->check(nonempty())
+                  ->group("Angles");
+    if (!default_value.empty()) o->capture_default_str();
+}
+
 double parse_length_cm(const std::string& option, const std::string& text) {
     const std::string t = trim(text);
     struct Unit {
@@ -100,6 +139,7 @@ double parse_length_cm(const std::string& option, const std::string& text) {
         throw InputError(option + ": '" + text + "' has an unknown unit; use nm, um, mm or cm");
     const double value = parse_number(option, number);
     if (value <= 0) throw InputError(option + ": length '" + text + "' must be positive");
+    if (value * scale > kMaxLength_cm) throw InputError(option + ": length '" + text + "' is longer than 10 m");
     return value * scale;
 }
 

@@ -52,8 +52,23 @@ const CLI::Validator& nonempty();
 /// A finite number from an option's text; throws InputError "--name: 'x' is not a number".
 double parse_number(const std::string& option, const std::string& text);
 
+/// Longest length an option accepts, 10 m: anything longer is a typo.
+inline constexpr double kMaxLength_cm = 1000.0;
+
 /// A length with unit suffix nm, um (or µm), mm, cm; a bare number means mm. Returns cm.
 double parse_length_cm(const std::string& option, const std::string& text);
+
+/// Most angles one --two-theta may give.
+inline constexpr std::size_t kMaxAnglePoints = 10'000'000;
+
+/// Angles from "START:STOP:STEP" (STOP included when the steps land on it
+/// within 1e-9 of a step) or a comma list "20,30.5,40", degrees. Checks only the
+/// syntax, finiteness, step > 0, START <= STOP and the point limit: each command
+/// checks the range its geometry allows.
+std::vector<double> parse_angles_deg(const std::string& option, const std::string& text);
+
+/// Adds --two-theta to a command.
+void add_two_theta_option(CLI::App& app, std::string& two_theta, const std::string& default_value = "");
 
 /// A positive whole number.
 std::size_t parse_count(const std::string& option, const std::string& text);

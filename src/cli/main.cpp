@@ -26,6 +26,14 @@ const Command kCommands[] = {
      mudepth::cli::register_mu},
     {"scan", "Attenuation versus energy over a range, with the edges crossed",
      mudepth::cli::register_scan},
+    {"depth", "Depth probed versus 2-theta: symmetric, fixed and grazing incidence, tilts, the inverse",
+     mudepth::cli::register_depth},
+    {"film", "Layered films on a substrate: each layer's share of the diffracted signal",
+     mudepth::cli::register_film},
+    {"plate", "Flat-plate absorption factors: finite-thickness reflection, transmission, windows",
+     mudepth::cli::register_plate},
+    {"cylinder", "Capillary absorption factors A and A*, with the container wall (Paalman & Pings)",
+     mudepth::cli::register_cylinder},
     {"materials", "List the built-in compositions, or show one", mudepth::cli::register_materials},
 };
 
