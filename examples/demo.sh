@@ -42,3 +42,12 @@ echo "== Choosing a beamline energy for TW-041: mu across the Fe and Co K edges"
 echo "(200-point scan written to $out/tw041_scan.csv, plotted in $out/tw041_scan.svg)"
 
 step "Capillary and window materials in the built-in library" materials
+
+# The geometry parts of the scenario, one fragment per command.
+for part in depth film plate cylinder filter plan; do
+    if [ -f "examples/demo_$part.sh" ]; then
+        source "examples/demo_$part.sh"
+    fi
+done
+echo
+echo "Plots and tables written to $out/"

@@ -13,5 +13,6 @@ void register_depth(CLI::App& sub);
 void register_film(CLI::App& sub);
 void register_plate(CLI::App& sub);
 void register_cylinder(CLI::App& sub);
+void register_filter(CLI::App& sub);
 
 }  // namespace mudepth::cli

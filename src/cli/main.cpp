@@ -34,6 +34,8 @@ const Command kCommands[] = {
      mudepth::cli::register_plate},
     {"cylinder", "Capillary absorption factors A and A*, with the container wall (Paalman & Pings)",
      mudepth::cli::register_cylinder},
+    {"filter", "Kb filter foils: the element, the thickness for a Kb/Ka ratio, the Ka transmission",
+     mudepth::cli::register_filter},
     {"materials", "List the built-in compositions, or show one", mudepth::cli::register_materials},
 };
 
