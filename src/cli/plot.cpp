@@ -191,14 +191,42 @@ std::string render_svg(const Plot& plot) {
         o << "<path stroke=\"" << color << "\" d=\"" << d << "\"/>\n";
     }
     o << "</g>\n";
-    // Legend.
+    // Legend: in the plot corner that hides the fewest curve points.
     if (plot.series.size() > 1 || (!plot.series.empty() && !plot.series[0].label.empty())) {
-        double y = kTop + 70;
+        std::size_t longest = 0;
+        for (const auto& series : plot.series) longest = std::max(longest, series.label.size());
+        const double box_w = 44 + 7.2 * static_cast<double>(longest);
+        const double box_h = 18.0 * static_cast<double>(plot.series.size()) + 8;
+        const double inner_left = kLeft + 8, inner_right = kWidth - kRight - 8 - box_w;
+        const double inner_top = kTop + 30, inner_bottom = kHeight - kBottom - 8 - box_h;
+        const std::pair<double, double> corners[] = {
+            {inner_right, inner_top}, {inner_left, inner_top}, {inner_right, inner_bottom}, {inner_left, inner_bottom}};
+        auto hidden = [&](double bx, double by) {
+            std::size_t n = 0;
+            for (const auto& series : plot.series)
+                for (std::size_t k = 0; k < series.x.size() && k < series.y.size(); ++k) {
+                    if (!std::isfinite(series.x[k]) || !std::isfinite(series.y[k])) continue;
+                    if ((ax.log && series.x[k] <= 0) || (ay.log && series.y[k] <= 0)) continue;
+                    const double px = ax.map(series.x[k]), py = ay.map(series.y[k]);
+                    if (px >= bx && px <= bx + box_w && py >= by && py <= by + box_h) ++n;
+                }
+            return n;
+        };
+        auto best = corners[0];
+        std::size_t fewest = hidden(best.first, best.second);
+        for (const auto& c : corners) {
+            const std::size_t n = hidden(c.first, c.second);
+            if (n < fewest) fewest = n, best = c;
+        }
+        const auto [bx, by] = best;
+        o << "<rect x=\"" << num(bx) << "\" y=\"" << num(by) << "\" width=\"" << num(box_w) << "\" height=\""
+          << num(box_h) << "\" fill=\"white\" fill-opacity=\"0.85\" stroke=\"#bbbbbb\"/>\n";
+        double y = by + 17;
         for (std::size_t i = 0; i < plot.series.size(); ++i, y += 18) {
-            const double x = kWidth - kRight - 220;
-            o << "<line x1=\"" << x << "\" y1=\"" << y << "\" x2=\"" << x + 24 << "\" y2=\"" << y
-              << "\" stroke=\"" << kColors[i % std::size(kColors)] << "\" stroke-width=\"3\"/>\n<text x=\"" << x + 30
-              << "\" y=\"" << y + 4 << "\" font-size=\"13\">" << esc(plot.series[i].label) << "</text>\n";
+            const double x = bx + 8;
+            o << "<line x1=\"" << num(x) << "\" y1=\"" << num(y - 4) << "\" x2=\"" << num(x + 24) << "\" y2=\""
+              << num(y - 4) << "\" stroke=\"" << kColors[i % std::size(kColors)] << "\" stroke-width=\"3\"/>\n<text x=\""
+              << num(x + 30) << "\" y=\"" << num(y) << "\" font-size=\"13\">" << esc(plot.series[i].label) << "</text>\n";
         }
     }
     o << "</svg>\n";
