@@ -19,33 +19,26 @@
 
 #include "data/tables.hpp"
 #include "mudepth/error.hpp"
+#include "mudepth/radiation.hpp"
 
 namespace mudepth {
 
 namespace {
 
-constexpr double kMinEnergy_keV = 1.0;    // SPEC R2
-constexpr double kMaxEnergy_keV = 500.0;  // SPEC R2
 constexpr double kLogEvPerKeV = 6.907755278982137;  // ln(1000)
 
-// An edge is a repeated ln E in the Elam table, stored to 6 significant digits
-// (at most 5e-5 from the edge energy mudepth::edges() reports). Energies up to
-// this much below a step (relative energy 1e-4: 2 eV at 20 keV) count as at the
-// edge and get the value above it, so that the edge energy reported by
-// mudepth::edges(), or one converted from keV that rounds an ulp low, does.
-constexpr double kEdgeSlack = 1e-4;
+// An edge is a repeated ln E in the tables, stored to 6 significant digits:
+// up to 5e-5 from the edge energy mudepth::edges() reports. Within this window
+// of a step the side of the edge is decided by that exact edge energy, so that
+// an energy a few eV below a heavy element's K edge gets the value below it,
+// and the edge energy itself the value above.
+constexpr double kStepWindow = 1e-4;
 
-std::string format_number(double value) {
-    char buffer[32];
-    std::snprintf(buffer, sizeof buffer, "%.6g", value);
-    return buffer;
-}
 
+/// The energy check of radiation.hpp, off the hot path; it throws for every energy that gets here.
 [[noreturn, gnu::cold, gnu::noinline]] void throw_bad_energy(double energy_keV) {
-    if (!std::isfinite(energy_keV))
-        throw InputError("energy " + format_number(energy_keV) +
-                         " keV is not a finite number; give an energy in 1..500 keV");
-    throw InputError("energy " + format_number(energy_keV) + " keV is outside 1..500 keV");
+    check_energy_keV(energy_keV);
+    throw InputError("energy outside 1..500 keV");  // not reached
 }
 
 [[noreturn, gnu::cold, gnu::noinline]] void throw_bad_atomic_number(int Z) {
@@ -79,24 +72,48 @@ std::span<const Node> nodes_of(const Node* table, const std::array<std::size_t, 
     return {table + begin[i], begin[i + 1] - begin[i]};
 }
 
+/// ln(E/eV) of the edge of element Z nearest to a table step at step_log_energy_eV
+/// (the step itself when no edge lies within kStepWindow).
+[[gnu::cold]] double exact_edge_log_energy_eV(int Z, double step_log_energy_eV) {
+    const auto z = static_cast<std::size_t>(Z - 1);
+    double best = step_log_energy_eV;
+    double best_distance = kStepWindow;
+    for (auto k = data::kEdgeBegin[z]; k < data::kEdgeBegin[z + 1]; ++k) {
+        const double x = std::log(data::kEdges[k].energy_keV) + kLogEvPerKeV;
+        if (std::abs(x - step_log_energy_eV) <= best_distance) {
+            best_distance = std::abs(x - step_log_energy_eV);
+            best = x;
+        }
+    }
+    return best;
+}
+
 /// Index i of the segment [i, i+1] holding log_energy: the last node with
-/// x_i <= log_energy, kept inside the grid. At a step (an edge, a repeated
-/// energy) up to kEdgeSlack above log_energy, the last node of the step, so the
-/// segment above the edge.
+/// x_i <= log_energy, kept inside the grid. Near a step (an edge: a repeated
+/// energy) the exact edge energy decides: at or above it the segment above the
+/// step, below it the segment below.
 template <class Node>
-std::size_t segment(std::span<const Node> nodes, double log_energy_eV) {
+std::size_t segment(std::span<const Node> nodes, double log_energy_eV, int Z) {
+    const std::size_t n = nodes.size();
     const auto above = std::upper_bound(
         nodes.begin(), nodes.end(), log_energy_eV,
         [](double x, const Node& node) { return x < node.log_energy_eV; });
-    auto i = std::clamp<std::size_t>(static_cast<std::size_t>(above - nodes.begin()), 1,
-                                      nodes.size() - 1) - 1;
-    const double next = nodes[i + 1].log_energy_eV;
-    if (next - log_energy_eV <= kEdgeSlack) {
-        std::size_t last = i + 1;  // last node of a run of equal energies
-        while (last + 1 < nodes.size() && nodes[last + 1].log_energy_eV == next) ++last;
-        if (last > i + 1) i = std::min(last, nodes.size() - 2);
+    const auto i = std::clamp<std::size_t>(static_cast<std::size_t>(above - nodes.begin()), 1, n - 1) - 1;
+    auto is_step = [&](std::size_t k) { return k + 1 < n && nodes[k].log_energy_eV == nodes[k + 1].log_energy_eV; };
+    std::size_t first = 0;  // first node of the step near log_energy
+    if (nodes[i + 1].log_energy_eV - log_energy_eV <= kStepWindow && is_step(i + 1)) {
+        first = i + 1;
+    } else if (log_energy_eV - nodes[i].log_energy_eV <= kStepWindow && i >= 1 && is_step(i - 1)) {
+        first = i - 1;
+        while (first >= 1 && is_step(first - 1)) --first;
+    } else {
+        return i;
     }
-    return i;
+    std::size_t last = first;
+    while (is_step(last)) ++last;
+    const double edge = exact_edge_log_energy_eV(Z, nodes[first].log_energy_eV);
+    if (log_energy_eV >= edge) return std::min(last, n - 2);
+    return first >= 1 ? first - 1 : 0;
 }
 
 /// Cubic spline between two nodes from the values and second derivatives at
@@ -110,7 +127,7 @@ double spline(double x0, double y0, double d0, double x1, double y1, double d1, 
 
 double elam_photo_cm2_g(int Z, double log_energy_eV) {
     const auto nodes = nodes_of(data::kElamPhoto, data::kElamPhotoBegin, Z);
-    const auto i = segment(nodes, log_energy_eV);
+    const auto i = segment(nodes, log_energy_eV, Z);
     const auto& n0 = nodes[i];
     const auto& n1 = nodes[i + 1];
     return std::exp(spline(n0.log_energy_eV, n0.log_mu_cm2_g, n0.second_derivative,
@@ -124,7 +141,7 @@ struct Scattering {
 
 Scattering elam_scattering(int Z, double log_energy_eV) {
     const auto nodes = nodes_of(data::kElamScatter, data::kElamScatterBegin, Z);
-    const auto i = segment(nodes, log_energy_eV);
+    const auto i = segment(nodes, log_energy_eV, Z);
     const auto& n0 = nodes[i];
     const auto& n1 = nodes[i + 1];
     const double coherent =
@@ -145,7 +162,7 @@ MassAttenuation elam(int Z, double log_energy_eV) {
 /// other columns (already logarithms) linear in ln E, i.e. log-log.
 data::ChantlerNode chantler_interpolate(int Z, double log_energy_eV) {
     const auto nodes = nodes_of(data::kChantler, data::kChantlerBegin, Z);
-    const auto i = segment(nodes, log_energy_eV);
+    const auto i = segment(nodes, log_energy_eV, Z);
     const auto& n0 = nodes[i];
     const auto& n1 = nodes[i + 1];
     const double t = (log_energy_eV - n0.log_energy_eV) / (n1.log_energy_eV - n0.log_energy_eV);

@@ -71,7 +71,7 @@ std::vector<std::string> avoiding_sources(int Z) {
 
 std::vector<NearbyEdge> edges_near(const Material& material, double energy_keV, double below_keV,
                                    double above_keV) {
-    return edges_in(material, energy_keV - below_keV, energy_keV + above_keV);
+    return edges_in(material, std::max(kMinEnergy_keV, energy_keV - below_keV), energy_keV + above_keV);
 }
 
 std::vector<NearbyEdge> edges_between(const Material& material, double from_keV, double to_keV) {
@@ -86,7 +86,7 @@ std::vector<FluorescenceWarning> fluorescence_warnings(const Material& material,
         seen.push_back(share.Z);
         // One warning per element: K when it is excited, otherwise L3.
         for (const auto& f : detectable_edges(share.Z)) {
-            if (f.edge->energy_keV >= energy_keV) continue;
+            if (f.edge->energy_keV > energy_keV) continue;  // at the edge energy it is excited
             FluorescenceWarning w{share.Z, std::string(element(share.Z).symbol), std::string(f.edge->level),
                                   f.edge->energy_keV, std::string(f.line->iupac),
                                   std::string(f.line->siegbahn), f.line->energy_keV,

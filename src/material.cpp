@@ -7,6 +7,7 @@
 #include <numbers>
 #include <string>
 
+#include "mudepth/constants.hpp"
 #include "mudepth/error.hpp"
 
 namespace mudepth {
@@ -14,7 +15,6 @@ namespace mudepth {
 namespace {
 
 // Avogadro constant, 1/mol: exact in the SI since 2019 (CODATA 2018).
-constexpr double kAvogadro_per_mol = 6.02214076e23;
 constexpr double kCm3_per_A3 = 1e-24;
 
 std::string num(double x) {
@@ -53,6 +53,11 @@ void check_density_g_cm3(double density_g_cm3, std::string_view what) {
     if (!std::isfinite(density_g_cm3) || density_g_cm3 <= 0)
         throw InputError(std::string(what) + " " + num(density_g_cm3) +
                          " g/cm3 is not a density: it must be finite and > 0");
+    // No solid exceeds 23 g/cm3 (osmium) and no gas at normal pressure is below
+    // 1e-4 g/cm3 (hydrogen); outside these bounds, with margin, it is a typo.
+    if (density_g_cm3 > kMaxDensity_g_cm3 || density_g_cm3 < kMinDensity_g_cm3)
+        throw InputError(std::string(what) + " " + num(density_g_cm3) + " g/cm3 is outside " +
+                         num(kMinDensity_g_cm3) + ".." + num(kMaxDensity_g_cm3) + " g/cm3");
 }
 
 void check_packing_fraction(double packing_fraction) {
@@ -64,6 +69,7 @@ Material material_from_formula(const Formula& formula, double solid_density_g_cm
                                double packing_fraction) {
     check_density_g_cm3(solid_density_g_cm3, "density");
     check_packing_fraction(packing_fraction);
+    check_density_g_cm3(solid_density_g_cm3 * packing_fraction, "density × packing");
     const double M = formula.molar_mass_g_mol();
     if (formula.parts.empty() || !(M > 0) || !std::isfinite(M))
         throw InputError("formula '" + formula.text + "' has no elements");
@@ -167,6 +173,7 @@ Material mix(std::span<const Phase> phases, FractionBasis basis, double packing_
     // The pore-free mixture: volumes add, 1/ρ = Σ w_i/ρ_i.
     m.solid_density_g_cm3 = 1 / inverse_density;
     m.packing_fraction = packing_fraction;
+    check_density_g_cm3(m.density_g_cm3(), "density × packing of the mixture");
     m.density_source = "mixture of the phases' densities, 1/sum(w_i/rho_i)";
     return m;
 }

@@ -31,7 +31,11 @@ struct Material {
     double density_g_cm3() const { return solid_density_g_cm3 * packing_fraction; }
 };
 
-/// Checks a density in g/cm³ (finite, > 0); throws InputError naming `what`.
+/// Densities mudepth accepts, g/cm³: anything outside is a typo.
+inline constexpr double kMinDensity_g_cm3 = 1e-6;
+inline constexpr double kMaxDensity_g_cm3 = 30.0;
+
+/// Checks a density in g/cm³ (finite, within kMinDensity..kMaxDensity); throws InputError naming `what`.
 void check_density_g_cm3(double density_g_cm3, std::string_view what);
 
 /// Checks a packing fraction, 0 < f <= 1; throws InputError.

@@ -5,10 +5,10 @@
 #include <string>
 #include <string_view>
 
+#include "mudepth/constants.hpp"
+
 namespace mudepth {
 
-/// hc in keV·Å (CODATA 2018).
-inline constexpr double kHc_keV_A = 12.39841984;
 
 /// Allowed energy range (SPEC R2); outside it mudepth refuses, never extrapolates.
 inline constexpr double kMinEnergy_keV = 1.0;

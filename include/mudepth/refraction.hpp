@@ -2,14 +2,11 @@
 // total external reflection, n = 1 − δ − iβ.
 #pragma once
 
+#include "mudepth/constants.hpp"
 #include "mudepth/material.hpp"
 
 namespace mudepth {
 
-/// Classical electron radius, m (CODATA 2018).
-inline constexpr double kClassicalElectronRadius_m = 2.8179403262e-15;
-/// Avogadro constant, 1/mol (exact, SI 2019).
-inline constexpr double kAvogadro_per_mol = 6.02214076e23;
 
 struct Refraction {
     double delta = 0;               ///< δ = r_e λ²/(2π) Σ N_j f1_j, f1 from Chantler (2000)

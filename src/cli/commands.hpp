@@ -14,5 +14,6 @@ void register_film(CLI::App& sub);
 void register_plate(CLI::App& sub);
 void register_cylinder(CLI::App& sub);
 void register_filter(CLI::App& sub);
+void register_plan(CLI::App& sub);
 
 }  // namespace mudepth::cli

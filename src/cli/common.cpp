@@ -124,7 +124,8 @@ double parse_length_cm(const std::string& option, const std::string& text) {
         double cm;
     };
     // Longest suffixes first so "um" is not read as "m".
-    static const Unit units[] = {{"nm", 1e-7}, {"µm", 1e-4}, {"um", 1e-4}, {"mm", 0.1}, {"cm", 1.0}};
+    // "µm" with the micro sign U+00B5 or the Greek mu U+03BC.
+    static const Unit units[] = {{"nm", 1e-7}, {"\u00b5m", 1e-4}, {"\u03bcm", 1e-4}, {"um", 1e-4}, {"mm", 0.1}, {"cm", 1.0}};
     double scale = 0.1;  // a bare number means mm
     std::string number = t;
     for (const auto& u : units) {
@@ -140,6 +141,7 @@ double parse_length_cm(const std::string& option, const std::string& text) {
     const double value = parse_number(option, number);
     if (value <= 0) throw InputError(option + ": length '" + text + "' must be positive");
     if (value * scale > kMaxLength_cm) throw InputError(option + ": length '" + text + "' is longer than 10 m");
+    if (value * scale < kMinLength_cm) throw InputError(option + ": length '" + text + "' is shorter than 0.001 nm");
     return value * scale;
 }
 
@@ -250,6 +252,7 @@ Material material_from_phases(const SampleOptions& o) {
     if (!o.formula.empty() || !o.material.empty())
         throw InputError("--phase describes a mixture; do not combine it with --formula or --material");
     refuse_density_options(o, "--phase (each phase has its own density)");
+    if (!o.formula_units.empty()) throw InputError("--formula-units needs --cell and --formula, not --phase");
     std::vector<Phase> phases;
     for (const auto& spec : o.phases) phases.push_back(parse_phase(spec));
     const auto basis = o.phase_basis == "volume" ? FractionBasis::volume : FractionBasis::weight;
@@ -305,7 +308,9 @@ Material build_material(const SampleOptions& o) {
             density = 1;  // replaced below
         } else if (f.parts.size() == 1) {
             density = element(f.parts.front().Z).density_g_cm3;
-            source = "density of the pure element";
+            // The element table gives gases at 0 °C and 1 atm.
+            source = density < 0.01 ? "density of the pure element as a gas at 0 °C and 1 atm"
+                                     : "density of the pure element";
         } else {
             throw InputError("no density given for '" + o.formula +
                              "'; use --density (g/cm3), --bulk-density or --cell with --formula-units");

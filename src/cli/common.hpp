@@ -52,8 +52,9 @@ const CLI::Validator& nonempty();
 /// A finite number from an option's text; throws InputError "--name: 'x' is not a number".
 double parse_number(const std::string& option, const std::string& text);
 
-/// Longest length an option accepts, 10 m: anything longer is a typo.
+/// Lengths an option accepts: 0.001 nm to 10 m; anything outside is a typo.
 inline constexpr double kMaxLength_cm = 1000.0;
+inline constexpr double kMinLength_cm = 1e-10;
 
 /// A length with unit suffix nm, um (or µm), mm, cm; a bare number means mm. Returns cm.
 double parse_length_cm(const std::string& option, const std::string& text);

@@ -1,6 +1,7 @@
 // The mudepth command line: one binary, one subcommand per job. This list is
 // also the index that `mudepth --help` prints.
 #include <boost/version.hpp>
+#include <cstdio>
 #include <iostream>
 #include <nlohmann/json.hpp>
 #include <toml++/toml.h>
@@ -34,6 +35,8 @@ const Command kCommands[] = {
      mudepth::cli::register_plate},
     {"cylinder", "Capillary absorption factors A and A*, with the container wall (Paalman & Pings)",
      mudepth::cli::register_cylinder},
+    {"plan", "Sample planning: capillary diameter, dilution, plate thickness, powder mass, anode choice",
+     mudepth::cli::register_plan},
     {"filter", "Kb filter foils: the element, the thickness for a Kb/Ka ratio, the Ka transmission",
      mudepth::cli::register_filter},
     {"materials", "List the built-in compositions, or show one", mudepth::cli::register_materials},
@@ -51,8 +54,20 @@ std::string version_text() {
     return text;
 }
 
+/// The error as one line: control characters (a newline inside an option value) are escaped.
 int report(const std::string& message, int status) {
-    std::cerr << "mudepth: error: " << message << '\n';
+    std::string line;
+    for (const char c : message) {
+        const auto u = static_cast<unsigned char>(c);
+        if (u < 0x20 || u == 0x7f) {
+            char escaped[8];
+            std::snprintf(escaped, sizeof escaped, "\\x%02x", u);
+            line += escaped;
+        } else {
+            line += c;
+        }
+    }
+    std::cerr << "mudepth: error: " << line << '\n';
     return status;
 }
 

@@ -78,7 +78,8 @@ void Table::print_csv(std::ostream& out) const {
 
 void print_field(std::ostream& out, const std::string& label, const std::string& value) {
     std::string padded = label;
-    while (width(padded) < 22) padded += ' ';
+    do padded += ' ';
+    while (width(padded) < 22);
     out << padded << value << '\n';
 }
 

@@ -96,8 +96,9 @@ Axis make_axis(std::vector<double> values, bool log, bool round_out, double pixe
     if (log) {
         if (values.empty()) lo = 1, hi = 10;
         if (round_out) {  // to quarter decades
-            lo = std::pow(10.0, std::floor(std::log10(lo) * 4) / 4);
-            hi = std::pow(10.0, std::ceil(std::log10(hi) * 4) / 4);
+            // A little margin so a curve or level on a round value does not sit on the frame.
+            lo = std::pow(10.0, std::floor((std::log10(lo) - 0.05) * 4) / 4);
+            hi = std::pow(10.0, std::ceil((std::log10(hi) + 0.05) * 4) / 4);
         }
         if (hi <= lo) hi = lo * 10;
     } else {
@@ -189,6 +190,11 @@ std::string render_svg(const Plot& plot) {
             pen_down = true;
         }
         o << "<path stroke=\"" << color << "\" d=\"" << d << "\"/>\n";
+        if (s.x.size() <= 30)  // few points: mark them
+            for (std::size_t k = 0; k < s.x.size() && k < s.y.size(); ++k)
+                if (std::isfinite(s.x[k]) && std::isfinite(s.y[k]) && (!ax.log || s.x[k] > 0) && (!ay.log || s.y[k] > 0))
+                    o << "<circle cx=\"" << num(ax.map(s.x[k])) << "\" cy=\"" << num(ay.map(s.y[k]))
+                      << "\" r=\"3\" fill=\"" << color << "\"/>\n";
     }
     o << "</g>\n";
     // Legend: in the plot corner that hides the fewest curve points.
@@ -201,14 +207,19 @@ std::string render_svg(const Plot& plot) {
         const double inner_top = kTop + 30, inner_bottom = kHeight - kBottom - 8 - box_h;
         const std::pair<double, double> corners[] = {
             {inner_right, inner_top}, {inner_left, inner_top}, {inner_right, inner_bottom}, {inner_left, inner_bottom}};
+        auto drawable = [&](double x, double y) {
+            return std::isfinite(x) && std::isfinite(y) && (!ax.log || x > 0) && (!ay.log || y > 0);
+        };
+        // Points of the drawn curves, with 8 samples along each segment.
         auto hidden = [&](double bx, double by) {
             std::size_t n = 0;
+            auto inside = [&](double px, double py) { return px >= bx && px <= bx + box_w && py >= by && py <= by + box_h; };
             for (const auto& series : plot.series)
-                for (std::size_t k = 0; k < series.x.size() && k < series.y.size(); ++k) {
-                    if (!std::isfinite(series.x[k]) || !std::isfinite(series.y[k])) continue;
-                    if ((ax.log && series.x[k] <= 0) || (ay.log && series.y[k] <= 0)) continue;
-                    const double px = ax.map(series.x[k]), py = ay.map(series.y[k]);
-                    if (px >= bx && px <= bx + box_w && py >= by && py <= by + box_h) ++n;
+                for (std::size_t k = 0; k + 1 < series.x.size() && k + 1 < series.y.size(); ++k) {
+                    if (!drawable(series.x[k], series.y[k]) || !drawable(series.x[k + 1], series.y[k + 1])) continue;
+                    const double x0 = ax.map(series.x[k]), y0 = ay.map(series.y[k]);
+                    const double x1 = ax.map(series.x[k + 1]), y1 = ay.map(series.y[k + 1]);
+                    for (int j = 0; j < 8; ++j) n += inside(x0 + (x1 - x0) * j / 8.0, y0 + (y1 - y0) * j / 8.0);
                 }
             return n;
         };
@@ -237,13 +248,18 @@ void write_svg(const Plot& plot, const std::string& path) {
     namespace fs = std::filesystem;
     const std::string text = render_svg(plot);
     const fs::path target(path);
+    std::error_code status_error;
+    if (fs::is_directory(target, status_error))
+        throw FileError("cannot write plot '" + path + "': it is a directory; give a file name such as plot.svg");
     std::string tmp_name = target.filename().string();
     tmp_name.insert(0, 1, '.');
     tmp_name.append(".tmp");
     const fs::path tmp = target.parent_path() / tmp_name;
     {
         std::ofstream out(tmp, std::ios::binary | std::ios::trunc);
-        if (!out) throw FileError("cannot write plot '" + path + "': " + std::strerror(errno));
+        if (!out)
+            throw FileError("cannot write plot '" + path + "': " +
+                            (errno ? std::strerror(errno) : "the folder cannot be written"));
         out << text;
         out.flush();
         if (!out) {
