@@ -15,5 +15,6 @@ void register_plate(CLI::App& sub);
 void register_cylinder(CLI::App& sub);
 void register_filter(CLI::App& sub);
 void register_plan(CLI::App& sub);
+void register_correct(CLI::App& sub);
 
 }  // namespace mudepth::cli

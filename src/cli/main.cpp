@@ -35,6 +35,8 @@ const Command kCommands[] = {
      mudepth::cli::register_plate},
     {"cylinder", "Capillary absorption factors A and A*, with the container wall (Paalman & Pings)",
      mudepth::cli::register_cylinder},
+    {"correct", "Correct measured patterns for absorption; container subtraction; batches",
+     mudepth::cli::register_correct},
     {"plan", "Sample planning: capillary diameter, dilution, plate thickness, powder mass, anode choice",
      mudepth::cli::register_plan},
     {"filter", "Kb filter foils: the element, the thickness for a Kb/Ka ratio, the Ka transmission",
