@@ -129,10 +129,13 @@ FilterResult filter_for_ratio(const Anode& anode, int element, double target_rat
         return std::log(unfiltered / target_ratio) + g.kbeta - g.kalpha;
     };
     const double thick_cm = 0.1;  // 1 mm of metal: far beyond any useful foil
-    if (excess(thick_cm) > 0)
+    if (excess(thick_cm) > 0) {
+        const double edge_keV = find_edge(element, "K")->energy_keV;
+        const bool between = edge_keV > energy_of(anode, AnodeLine::Ka1) && edge_keV < energy_of(anode, AnodeLine::Kb);
         throw InputError(std::string(mudepth::element(element).symbol) + " cannot bring Kb/Ka of " +
                          std::string(anode.symbol) + " down to " + format_number(target_ratio) +
-                         ": its K edge does not lie between Ka and Kb");
+                         (between ? " with less than 1 mm of foil" : ": its K edge does not lie between Ka and Kb"));
+    }
     boost::math::tools::eps_tolerance<double> tolerance(40);
     std::uintmax_t iterations = 200;
     const auto [lo, hi] = boost::math::tools::toms748_solve(excess, 0.0, thick_cm, tolerance, iterations);
@@ -144,12 +147,18 @@ int best_filter_element(const Anode& anode, double target_ratio, CrossSectionTab
     if (candidates.empty())
         throw InputError("no element has its K edge between Ka1 and Kb1 of " + std::string(anode.symbol) +
                          ": no Kb filter exists for this anode");
-    int best = candidates.front();
+    int best = 0;
     double best_transmission = -1;
+    std::string last_reason;
     for (int Z : candidates) {
-        const double t = filter_for_ratio(anode, Z, target_ratio, table).kalpha_transmission;
-        if (t > best_transmission) best_transmission = t, best = Z;
+        try {
+            const double t = filter_for_ratio(anode, Z, target_ratio, table).kalpha_transmission;
+            if (t > best_transmission) best_transmission = t, best = Z;
+        } catch (const InputError& e) {
+            last_reason = e.what();  // this candidate cannot reach the target; try the others
+        }
     }
+    if (best == 0) throw InputError(last_reason);
     return best;
 }
 

@@ -1,4 +1,4 @@
-// Flat-plate absorption factors (ITC C §6.3.3, Table 6.3.3.1; derivations in REFERENCES.md).
+// Flat-plate absorption factors (ITC C §6.3.3, Table 6.3.3.1).
 #include "mudepth/plate.hpp"
 
 #include <cmath>

@@ -41,7 +41,9 @@ TEST(CliFilter, Refusals) {
                           Case{{"filter", "--anode", "Cu", "--element", "Fe"}, "does not lie between"},
                           Case{{"filter", "--anode", "Cu", "--element", "Qq"}, "unknown element 'Qq'"},
                           Case{{"filter", "--element", "Ni"}, "--element needs --anode"},
-                          Case{{"filter", "--anode", "Cu", "--thickness", "0"}, "must be positive"}}) {
+                          Case{{"filter", "--anode", "Cu", "--thickness", "0"}, "must be positive"},
+                          Case{{"filter", "--anode", "Cu", "--thickness", "20um", "--ratio", "0.5"}, "not both"},
+                          Case{{"filter", "--anode", "Cu", "--ratio", "1e-300"}, "with less than 1 mm of foil"}}) {
         const auto r = run_mudepth(c.args);
         EXPECT_EQ(r.status, 2) << c.message;
         EXPECT_TRUE(r.out.empty());

@@ -48,7 +48,7 @@ TEST(CliMu, ElementsSumToTheSample) {
     }
     EXPECT_NEAR(weights, 1.0, 1e-12);
     EXPECT_NEAR(weighted, j["mass_attenuation_cm2_g"]["total"].get<double>(), 1e-9 * weighted);
-    // Mo Kα = 0.7107471 Å (derived from Hölzer et al. 1997, REFERENCES.md).
+    // Mo Kα = 0.7107471 Å (derived from Hölzer et al. 1997).
     EXPECT_NEAR(j["wavelength_A"].get<double>(), 0.7107471, 1e-7);
     // Cu K edge (8.98 keV) is below Mo Kα: Cu fluoresces (common practice).
     ASSERT_FALSE(j["warnings"].empty());

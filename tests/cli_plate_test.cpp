@@ -15,7 +15,7 @@ namespace {
 constexpr double kDeg = std::numbers::pi / 180;
 
 TEST(CliPlate, JsonForEachMode) {
-    // Closed forms (ITC C Table 6.3.3.1; REFERENCES.md) at μt = 0.5.
+    // Closed forms (ITC C Table 6.3.3.1) at μt = 0.5.
     const double mt = 0.5;
     struct Mode {
         const char* name;
@@ -44,7 +44,7 @@ TEST(CliPlate, JsonForEachMode) {
 TEST(CliPlate, InfiniteThicknessAndFixedIncidence) {
     const auto j = run_json({"plate", "--mu-t", "1", "--two-theta", "20:100:40", "--json"});
     ASSERT_EQ(j["infinite_thickness"].size(), 2u);
-    // The largest over the range, at 2θ = 100°: ln(1/(1−f)) sinθ/2 (Cullity's form, REFERENCES.md).
+    // The largest over the range, at 2θ = 100°: ln(1/(1−f)) sinθ/2 (Cullity's form).
     EXPECT_NEAR(j["infinite_thickness"][0]["mu_t"].get<double>(), std::log(100.0) * std::sin(50 * kDeg) / 2, 1e-12);
     const auto f = run_json({"plate", "--mu-t", "0.2", "--incidence", "5", "--json"});
     EXPECT_DOUBLE_EQ(f["points"][0]["two_theta_deg"].get<double>(), 10);  // defaults above the incidence

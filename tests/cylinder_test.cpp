@@ -31,7 +31,7 @@ TEST(Cylinder, FirstOrderLimit) {
 
 TEST(Cylinder, ForwardAndBackScatteringIntegrals) {
     // 2θ = 0: A = (4/π)∫₀^{π/2} cos²φ exp(−2μR cosφ) dφ;
-    // 2θ = 180°: A = [1 − ∫₀^{π/2} cosφ exp(−4μR cosφ) dφ]/(πμR) [derived; REFERENCES.md].
+    // 2θ = 180°: A = [1 − ∫₀^{π/2} cosφ exp(−4μR cosφ) dφ]/(πμR) [derived].
     for (double k : {0.01, 0.3, 1.0, 2.5, 5.0, 10.0, 20.0, 30.0}) {
         const double a0 = 4 / kPi * integrate([k](double p) { return std::cos(p) * std::cos(p) * std::exp(-2 * k * std::cos(p)); }, 0, kPi / 2);
         const double a180 = (1 - integrate([k](double p) { return std::cos(p) * std::exp(-4 * k * std::cos(p)); }, 0, kPi / 2)) / (kPi * k);
@@ -65,13 +65,13 @@ TEST(Cylinder, MeanPathIsSixteenOverThreePi) {
 }
 
 double rouse(double k, double two_theta_deg) {
-    // Rouse, Cooper, York & Chakera (1970), Acta Cryst. A26, 682 (REFERENCES.md).
+    // Rouse, Cooper, York & Chakera (1970), Acta Cryst. A26, 682.
     const double s2 = std::pow(std::sin(two_theta_deg / 2 * kPi / 180), 2);
     return std::exp(-(1.7133 - 0.0368 * s2) * k - (-0.0927 - 0.3750 * s2) * k * k);
 }
 
 double lobanov(double k, double two_theta_deg) {
-    // Lobanov & Alte da Veiga (1998), EPDIC-6 abstract P12-16, as given in REFERENCES.md.
+    // Lobanov & Alte da Veiga (1998), EPDIC-6 abstract P12-16.
     const double s = std::pow(std::sin(two_theta_deg / 2 * kPi / 180), 2);
     if (k <= 3) {
         const double t0 = 16 / (3 * kPi);

@@ -82,7 +82,7 @@ TEST(ElementsLines, MatchXraylibLineEnergy) {
 }
 
 // Anode wavelengths for diffraction work, Angstrom (Hoelzer et al. 1997, Phys.
-// Rev. A 56, 4554; ITC Vol. C Table 4.2.2.1), as listed in REFERENCES.md.
+// Rev. A 56, 4554; ITC Vol. C Table 4.2.2.1).
 struct Anode {
     int Z;
     double ka1_A, kb1_A;

@@ -1,5 +1,5 @@
 // Flat-plate factors against their closed forms and limits (ITC C Table 6.3.3.1;
-// REFERENCES.md), the optimum thicknesses by direct maximisation, and windows.
+// ITC Vol. C Table 6.3.3.1), the optimum thicknesses by direct maximisation, and windows.
 #include <gtest/gtest.h>
 
 #include <cmath>

@@ -12,15 +12,15 @@ namespace mudepth {
 namespace {
 
 TEST(Radiation, CuKaIsTheTwoToOneMean) {
-    // Derived in REFERENCES.md from Hölzer et al. (1997): (2·1.54059290 + 1.54442740)/3 = 1.5418711 Å.
+    // Derived from Hölzer et al. (1997): (2·1.54059290 + 1.54442740)/3 = 1.5418711 Å.
     EXPECT_NEAR(radiation_from_source("Cu").wavelength_A(), 1.5418711, 1e-7);
     EXPECT_NEAR(radiation_from_source("Cu:Ka").wavelength_A(), 1.5418711, 1e-7);
-    // Mo Kα = (2·0.70931715 + 0.713607)/3 = 0.7107471 Å (derived, REFERENCES.md).
+    // Mo Kα = (2·0.70931715 + 0.713607)/3 = 0.7107471 Å (derived from Hölzer et al. 1997).
     EXPECT_NEAR(radiation_from_source("Mo").wavelength_A(), 0.7107471, 1e-7);
 }
 
 TEST(Radiation, HoelzerLines) {
-    // Hölzer et al. (1997) / ITC Vol. C Table 4.2.2.1, as listed in REFERENCES.md.
+    // Hölzer et al. (1997) / ITC Vol. C Table 4.2.2.1.
     EXPECT_DOUBLE_EQ(radiation_from_source("Cu:Ka1").wavelength_A(), 1.54059290);
     EXPECT_DOUBLE_EQ(radiation_from_source("Cu:Ka2").wavelength_A(), 1.54442740);
     EXPECT_DOUBLE_EQ(radiation_from_source("Cu:Kb").wavelength_A(), 1.3922340);

@@ -52,7 +52,7 @@ TEST(Refraction, BetaAgainstXraylibRefractiveIndexIm) {
 }
 
 TEST(Refraction, CriticalAnglesAtCuKalpha) {
-    // Common practice (REFERENCES.md, from memory): at Cu Kα the critical angle is
+    // Common practice (from memory): at Cu Kα the critical angle is
     // about 0.22° for Si, 0.40° for Cu and 0.55° for Au.
     struct Case { const char* formula; double density; double expected_deg; };
     for (const auto& c : {Case{"Si", 2.329, 0.22}, Case{"Cu", 8.96, 0.40}, Case{"Au", 19.3, 0.55}}) {

@@ -16,9 +16,12 @@ namespace mudepth::cli {
 
 namespace {
 
+/// Default target Kβ/Kα after the foil: 1 %.
+constexpr const char* kDefaultRatio = "0.01";
+
 struct FilterOptions {
     std::string anode;
-    std::string ratio = "0.01";
+    std::string ratio;  ///< empty: the default target kDefaultRatio
     std::string thickness;
     std::string element;
     std::string table = "elam";
@@ -39,7 +42,10 @@ int element_from_symbol(const std::string& symbol) {
 
 AnodeFilter compute(const Anode& anode, const FilterOptions& o) {
     const auto table = build_table(o.table);
-    const double ratio = parse_number("--ratio", o.ratio);
+    if (!o.ratio.empty() && !o.thickness.empty())
+        throw InputError("give --ratio (the foil is found) or --thickness (the ratio is found), not both");
+    // With --thickness the element is still chosen as the best at the default ratio.
+    const double ratio = parse_number("--ratio", o.ratio.empty() ? kDefaultRatio : o.ratio);
     if (ratio <= 0) throw InputError("--ratio: the target Kb/Ka ratio must be positive");
     const std::optional<double> thickness_cm =
         o.thickness.empty() ? std::nullopt : std::optional(parse_length_cm("--thickness", o.thickness));
@@ -122,7 +128,7 @@ void run_filter(const FilterOptions& o) {
     if (results.size() == 1) {
         print_one(results[0], !o.thickness.empty());
     } else {
-        std::cout << (o.thickness.empty() ? "Kb filters for Kb/Ka = " + o.ratio
+        std::cout << (o.thickness.empty() ? "Kb filters for Kb/Ka = " + (o.ratio.empty() ? std::string(kDefaultRatio) : o.ratio)
                                           : "Kb filters of thickness " + o.thickness)
                   << " (intensity ratios from the element data's line intensities)\n\n";
         Table t({"anode", "unfiltered Kb/Ka", "filter", "K edge (keV)", "thickness", "mg/cm²", "Kb/Ka",
@@ -145,9 +151,8 @@ void register_filter(CLI::App& sub) {
     sub.add_option("--anode", o->anode, "Anode: Cr, Fe, Co, Cu, Ga, Mo, Ag, In or W (default: all)")
         ->type_name("ANODE")
         ->check(nonempty());
-    sub.add_option("--ratio", o->ratio, "Target Kb/Ka intensity ratio after the foil")
+    sub.add_option("--ratio", o->ratio, std::string("Target Kb/Ka intensity ratio after the foil (default: ") + kDefaultRatio + ")")
         ->type_name("RATIO")
-        ->capture_default_str()
         ->check(nonempty());
     sub.add_option("--thickness", o->thickness,
                    "Instead of --ratio: the foil thickness, giving the resulting ratio [nm, um, mm, cm; bare number: mm]")

@@ -27,7 +27,7 @@ const std::array<ElementRow, kElementCount> kElements = {{
     {14, "Si", 28.085, 2.329},
     {15, "P", 30.9738, 1.823},
     {16, "S", 32.06, 2.08},
-    {17, "Cl", 35.453, 3.2},
+    {17, "Cl", 35.453, 0.003214},  // corrected, see DENSITY_CORRECTIONS in the generator
     {18, "Ar", 39.948, 0.001784},
     {19, "K", 39.0983, 0.89},
     {20, "Ca", 40.078, 1.55},
