@@ -44,7 +44,7 @@ echo "(200-point scan written to $out/tw041_scan.csv, plotted in $out/tw041_scan
 step "Capillary and window materials in the built-in library" materials
 
 # The geometry parts of the scenario, one fragment per command.
-for part in depth film plate cylinder filter plan; do
+for part in depth film plate cylinder correct filter plan; do
     if [ -f "examples/demo_$part.sh" ]; then
         source "examples/demo_$part.sh"
     fi

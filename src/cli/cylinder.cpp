@@ -8,6 +8,7 @@
 
 #include "cli/commands.hpp"
 #include "cli/common.hpp"
+#include "cli/geometry_options.hpp"
 #include "cli/output.hpp"
 #include "cli/plot.hpp"
 #include "mudepth/attenuation.hpp"
@@ -25,98 +26,25 @@ struct CylinderOptions {
     SampleOptions sample;
     RadiationOptions radiation;
     std::string table = "elam";
-    std::string diameter;
-    std::string mu_R;
-    std::string container_material;
-    std::string wall;
-    std::string mu_R_container;
-    std::string radius_ratio;
+    CylinderGeometryOptions geometry;
     std::string two_theta;
     bool json = false;
     bool csv = false;
     std::string plot;
 };
 
-struct Wall {
-    std::string material;                ///< empty on the direct route
-    std::optional<double> mu_per_cm;     ///< material route
-    std::optional<double> thickness_cm;  ///< material route
-    double mu_R = 0;                     ///< wall μ × sample radius
-    double radius_ratio = 1;
-};
+using Wall = ContainerWall;
 
-struct CylinderReport {
-    std::string sample;
-    std::string radiation;
-    std::optional<double> energy_keV, mu_per_cm, diameter_cm;
-    double mu_R = 0;
-    std::optional<Wall> wall;
+/// The sample and wall (shared with `correct`) and the factors at each angle.
+struct CylinderReport : CylinderSample {
     std::vector<double> angles_deg;
     std::vector<double> transmission;
     std::vector<ContainerFactors> factors;
-    std::vector<std::string> warnings;
 };
-
-bool has_material(const SampleOptions& s) { return !s.formula.empty() || !s.material.empty() || !s.phases.empty(); }
 
 CylinderReport compute(const CylinderOptions& o) {
     CylinderReport r;
-    const bool direct = !o.mu_R.empty();
-    std::optional<Radiation> radiation;
-    if (direct) {
-        if (has_material(o.sample)) throw InputError("--mu-r gives μR directly; do not combine it with a sample material");
-        if (!o.diameter.empty()) throw InputError("give either --mu-r or --diameter, not both");
-        r.mu_R = parse_number("--mu-r", o.mu_R);
-        if (r.mu_R <= 0) throw InputError("--mu-r: μR = " + o.mu_R + " must be positive");
-        r.sample = "given as μR";
-    } else {
-        if (!has_material(o.sample))
-            throw InputError("no sample given; use --mu-r, or a material (--formula, --material) with --diameter");
-        if (o.diameter.empty()) throw InputError("the material route needs --diameter (inner diameter of the capillary)");
-        const Material m = build_material(o.sample);
-        radiation = build_radiation(o.radiation);
-        r.diameter_cm = parse_length_cm("--diameter", o.diameter);
-        r.sample = m.name;
-        r.energy_keV = radiation->energy_keV;
-        r.radiation = radiation->label;
-        r.mu_per_cm = linear_attenuation_per_cm(m, radiation->energy_keV, build_table(o.table));
-        r.mu_R = *r.mu_per_cm * *r.diameter_cm / 2;
-    }
-    if (r.mu_R > kMaxCylinderMuR)
-        throw InputError("μR = " + fmt(r.mu_R, 5) +
-                         " is above 30: too absorbing for a capillary; use a thinner capillary or dilute the sample");
-
-    const bool wall_by_material = !o.container_material.empty() || !o.wall.empty();
-    const bool wall_direct = !o.mu_R_container.empty() || !o.radius_ratio.empty();
-    if (wall_by_material && wall_direct)
-        throw InputError("describe the wall either by --container-material and --wall, or by --mu-r-container and "
-                         "--radius-ratio");
-    if (wall_by_material) {
-        if (o.container_material.empty() || o.wall.empty())
-            throw InputError("a container wall needs both --container-material and --wall");
-        if (direct)
-            throw InputError("--container-material needs the sample's --diameter; with --mu-r use --mu-r-container "
-                             "and --radius-ratio");
-        Wall w;
-        const Composition c = find_composition(o.container_material);
-        w.material = c.name;
-        w.thickness_cm = parse_length_cm("--wall", o.wall);
-        w.mu_per_cm = linear_attenuation_per_cm(c.material, radiation->energy_keV, build_table(o.table));
-        const double radius_cm = *r.diameter_cm / 2;
-        w.mu_R = *w.mu_per_cm * radius_cm;
-        w.radius_ratio = (radius_cm + *w.thickness_cm) / radius_cm;
-        r.wall = w;
-    } else if (wall_direct) {
-        if (o.mu_R_container.empty() || o.radius_ratio.empty())
-            throw InputError("a container wall needs both --mu-r-container and --radius-ratio");
-        Wall w;
-        w.mu_R = parse_number("--mu-r-container", o.mu_R_container);
-        if (w.mu_R < 0) throw InputError("--mu-r-container: " + o.mu_R_container + " must be zero or positive");
-        w.radius_ratio = parse_number("--radius-ratio", o.radius_ratio);
-        if (w.radius_ratio <= 1)
-            throw InputError("--radius-ratio: " + o.radius_ratio + " must be above 1 (outer wall radius over sample radius)");
-        r.wall = w;
-    }
+    static_cast<CylinderSample&>(r) = resolve_cylinder(o.sample, o.radiation, o.table, o.geometry);
 
     r.angles_deg = parse_angles_deg("--two-theta", o.two_theta.empty() ? kDefaultAngles : o.two_theta);
     for (double a : r.angles_deg)
@@ -127,11 +55,6 @@ CylinderReport compute(const CylinderOptions& o) {
     } else {
         r.transmission = cylinder_transmission(r.mu_R, r.angles_deg);
     }
-    // μR about 1 or below is the usual aim for capillaries (common practice).
-    if (r.mu_R > 3)
-        r.warnings.push_back("μR = " + fmt(r.mu_R, 4) +
-                             " is high: the correction varies strongly with 2θ; a thinner capillary or a diluted "
-                             "sample (μR near 1) is the usual choice");
     return r;
 }
 
@@ -262,19 +185,7 @@ void register_cylinder(CLI::App& sub) {
     add_sample_options(sub, o->sample);
     add_radiation_options(sub, o->radiation);
     add_table_option(sub, o->table);
-    sub.add_option("--diameter", o->diameter, "Inner diameter of the capillary, filled with sample [nm, um, mm, cm; bare number: mm]")
-        ->type_name("LENGTH")->check(nonempty())->group("Cylinder");
-    sub.add_option("--mu-r", o->mu_R, "μR directly (μ times the sample radius), 0 < μR <= 30, instead of a material")
-        ->type_name("X")->check(nonempty())->group("Cylinder");
-    sub.add_option("--container-material", o->container_material,
-                   "Material of the capillary wall, a composition name or file (e.g. borosilicate-3.3)")
-        ->type_name("NAME|FILE")->check(nonempty())->group("Container");
-    sub.add_option("--wall", o->wall, "Wall thickness of the capillary [nm, um, mm, cm; bare number: mm]")
-        ->type_name("LENGTH")->check(nonempty())->group("Container");
-    sub.add_option("--mu-r-container", o->mu_R_container, "The wall's μ times the SAMPLE radius, instead of a material")
-        ->type_name("X")->check(nonempty())->group("Container");
-    sub.add_option("--radius-ratio", o->radius_ratio, "Outer radius of the wall over the sample radius, > 1")
-        ->type_name("X")->check(nonempty())->group("Container");
+    add_cylinder_geometry_options(sub, o->geometry);
     add_two_theta_option(sub, o->two_theta);
     sub.get_option("--two-theta")->description(
         "Scattering angles 2θ: START:STOP:STEP or a list a,b,c, 0 to 180 [degrees] (default: 5:150:5)");

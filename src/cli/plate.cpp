@@ -1,6 +1,7 @@
 // `mudepth plate`: flat-plate absorption factors versus 2θ — finite-thickness
 // reflection, transmission (beam normal or symmetric), window foils.
 #include <algorithm>
+#include <cmath>
 #include <iostream>
 #include <memory>
 #include <optional>
@@ -9,6 +10,7 @@
 
 #include "cli/commands.hpp"
 #include "cli/common.hpp"
+#include "cli/geometry_options.hpp"
 #include "cli/output.hpp"
 #include "cli/plot.hpp"
 #include "mudepth/attenuation.hpp"
@@ -24,43 +26,28 @@ struct PlateOptions {
     SampleOptions sample;
     RadiationOptions radiation;
     std::string table = "elam";
-    std::string thickness;
-    std::string mu_t;
+    PlateGeometryOptions geometry;
     std::string mode = "reflection";
-    std::string incidence;
-    std::string window_material;
-    std::string window_thickness;
-    std::string mu_t_window;
     std::string two_theta;
     bool json = false;
     bool csv = false;
     std::string plot;
 };
 
-struct Window {
-    std::string material;
-    std::optional<double> mu_per_cm, thickness_cm;
-    double mu_t = 0;  ///< of one foil
-};
+using Window = WindowFoils;
 
 struct Point {
     double two_theta_deg, sample, window, optimum_mu_t;
 };
 
-struct PlateReport {
-    std::string sample, radiation;
-    std::optional<double> mu_per_cm, thickness_cm, incidence_deg;
-    double mu_t = 0;
-    PlateMode mode = PlateMode::reflection;
-    std::optional<Window> window;
+/// The sample, mode and windows (shared with `correct`) and the points.
+struct PlateReport : PlateSample {
     std::vector<Point> points;
     struct Infinite {
         double fraction, mu_t;
     };
     std::vector<Infinite> infinite;  ///< reflection: over the angle range
 };
-
-bool has_material(const SampleOptions& s) { return !s.formula.empty() || !s.material.empty() || !s.phases.empty(); }
 
 std::vector<double> default_angles(PlateMode mode, std::optional<double> incidence_deg) {
     std::vector<double> out;
@@ -72,56 +59,7 @@ std::vector<double> default_angles(PlateMode mode, std::optional<double> inciden
 
 PlateReport compute(const PlateOptions& o) {
     PlateReport r;
-    r.mode = parse_plate_mode(o.mode);
-    if (!o.incidence.empty()) {
-        if (r.mode != PlateMode::reflection)
-            throw InputError("--incidence applies to reflection only, not to " + std::string(to_string(r.mode)));
-        r.incidence_deg = parse_number("--incidence", o.incidence);
-    }
-    const bool direct = !o.mu_t.empty();
-    const bool needs_radiation = !direct || !o.window_material.empty();
-    if (!direct && !has_material(o.sample))
-        throw InputError("no sample given; use --mu-t, or a material (--formula, --material) with --thickness");
-    std::optional<Radiation> radiation;
-    if (needs_radiation) {
-        radiation = build_radiation(o.radiation);
-        r.radiation = radiation->label;
-    }
-    if (direct) {
-        if (has_material(o.sample)) throw InputError("--mu-t gives μt directly; do not combine it with a sample material");
-        if (!o.thickness.empty()) throw InputError("give either --mu-t or --thickness, not both");
-        r.mu_t = parse_number("--mu-t", o.mu_t);
-        if (r.mu_t <= 0) throw InputError("--mu-t: μt = " + o.mu_t + " must be positive");
-        r.sample = "given as μt";
-    } else {
-        if (!has_material(o.sample))
-            throw InputError("no sample given; use --mu-t, or a material (--formula, --material) with --thickness");
-        if (o.thickness.empty()) throw InputError("the material route needs --thickness (the plate's thickness)");
-        const Material m = build_material(o.sample);
-        r.thickness_cm = parse_length_cm("--thickness", o.thickness);
-        r.sample = m.name;
-        r.mu_per_cm = linear_attenuation_per_cm(m, radiation->energy_keV, build_table(o.table));
-        r.mu_t = *r.mu_per_cm * *r.thickness_cm;
-    }
-    const bool window_material = !o.window_material.empty() || !o.window_thickness.empty();
-    if (window_material && !o.mu_t_window.empty())
-        throw InputError("describe the windows either by --window-material and --window-thickness, or by --mu-t-window");
-    if (window_material) {
-        if (o.window_material.empty() || o.window_thickness.empty())
-            throw InputError("windows need both --window-material and --window-thickness");
-        Window w;
-        const Composition c = find_composition(o.window_material);
-        w.material = c.name;
-        w.thickness_cm = parse_length_cm("--window-thickness", o.window_thickness);
-        w.mu_per_cm = linear_attenuation_per_cm(c.material, radiation->energy_keV, build_table(o.table));
-        w.mu_t = *w.mu_per_cm * *w.thickness_cm;
-        r.window = w;
-    } else if (!o.mu_t_window.empty()) {
-        Window w;
-        w.mu_t = parse_number("--mu-t-window", o.mu_t_window);
-        if (w.mu_t <= 0) throw InputError("--mu-t-window: " + o.mu_t_window + " must be positive");
-        r.window = w;
-    }
+    static_cast<PlateSample&>(r) = resolve_plate(parse_plate_mode(o.mode), o.sample, o.radiation, o.table, o.geometry);
 
     const auto angles = o.two_theta.empty() ? default_angles(r.mode, r.incidence_deg)
                                             : parse_angles_deg("--two-theta", o.two_theta);
@@ -130,6 +68,10 @@ PlateReport compute(const PlateOptions& o) {
         Point p{a, plate_transmission(r.mode, r.mu_t, a, r.incidence_deg), 1.0, 0.0};
         if (r.window) p.window = window_transmission(r.mode, r.window->mu_t, a, r.incidence_deg);
         if (r.mode != PlateMode::reflection) p.optimum_mu_t = transmission_optimum_mu_t(r.mode, a);
+        // A factor that underflows would print an infinite correction.
+        if (!std::isfinite(1 / (p.sample * p.window)))
+            throw InputError("at 2θ = " + fmt(a, 6) + "° the plate and windows let through less than 1e-308 of the " +
+                             "beam (μt = " + fmt(r.mu_t, 6) + "): nothing is left to correct");
         r.points.push_back(p);
     }
     if (r.mode == PlateMode::reflection)
@@ -269,21 +211,10 @@ void register_plate(CLI::App& sub) {
     add_sample_options(sub, o->sample);
     add_radiation_options(sub, o->radiation);
     add_table_option(sub, o->table);
-    sub.add_option("--thickness", o->thickness, "Thickness of the plate [nm, um, mm, cm; bare number: mm]")
-        ->type_name("LENGTH")->check(nonempty())->group("Plate");
-    sub.add_option("--mu-t", o->mu_t, "μt directly (μ times the thickness), instead of a material")
-        ->type_name("X")->check(nonempty())->group("Plate");
+    add_plate_thickness_options(sub, o->geometry);
     sub.add_option("--mode", o->mode, "reflection, transmission-normal (beam normal to the plate) or transmission-symmetric")
         ->type_name("MODE")->capture_default_str()->check(nonempty())->group("Plate");
-    sub.add_option("--incidence", o->incidence, "Fixed incidence angle, reflection only (default: symmetric) [degrees]")
-        ->type_name("DEG")->check(nonempty())->group("Plate");
-    sub.add_option("--window-material", o->window_material,
-                   "Window foils: a composition name or file (transmission: one foil each side; reflection: a cover foil)")
-        ->type_name("NAME|FILE")->check(nonempty())->group("Windows");
-    sub.add_option("--window-thickness", o->window_thickness, "Thickness of ONE window foil [nm, um, mm, cm; bare number: mm]")
-        ->type_name("LENGTH")->check(nonempty())->group("Windows");
-    sub.add_option("--mu-t-window", o->mu_t_window, "μt of one window foil directly, instead of a material")
-        ->type_name("X")->check(nonempty())->group("Windows");
+    add_plate_incidence_and_window_options(sub, o->geometry);
     add_two_theta_option(sub, o->two_theta);
     sub.get_option("--two-theta")->description(
         "Scattering angles 2θ: START:STOP:STEP or a list a,b,c [degrees] (default: 5:150:5; 5:85:5 for "
