@@ -197,7 +197,7 @@ std::string render_svg(const Plot& plot) {
                       << "\" r=\"3\" fill=\"" << color << "\"/>\n";
     }
     o << "</g>\n";
-    // Legend: in the plot corner that hides the fewest curve points.
+    // Legend: in the corner (or side middle) that hides the fewest curve points.
     if (plot.series.size() > 1 || (!plot.series.empty() && !plot.series[0].label.empty())) {
         std::size_t longest = 0;
         for (const auto& series : plot.series) longest = std::max(longest, series.label.size());
@@ -205,8 +205,10 @@ std::string render_svg(const Plot& plot) {
         const double box_h = 18.0 * static_cast<double>(plot.series.size()) + 8;
         const double inner_left = kLeft + 8, inner_right = kWidth - kRight - 8 - box_w;
         const double inner_top = kTop + 30, inner_bottom = kHeight - kBottom - 8 - box_h;
-        const std::pair<double, double> corners[] = {
-            {inner_right, inner_top}, {inner_left, inner_top}, {inner_right, inner_bottom}, {inner_left, inner_bottom}};
+        const double inner_middle = (inner_top + inner_bottom) / 2;
+        const std::pair<double, double> corners[] = {{inner_right, inner_top},    {inner_left, inner_top},
+                                                     {inner_right, inner_bottom}, {inner_left, inner_bottom},
+                                                     {inner_right, inner_middle}, {inner_left, inner_middle}};
         auto drawable = [&](double x, double y) {
             return std::isfinite(x) && std::isfinite(y) && (!ax.log || x > 0) && (!ay.log || y > 0);
         };
