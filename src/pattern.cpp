@@ -616,6 +616,9 @@ Pattern read_pattern(const fs::path& path) {
     std::string text;
     in.seekg(0, std::ios::end);
     const auto size = in.tellg();
+    if (size > 0 && static_cast<std::uintmax_t>(size) > kMaxPatternFileBytes)
+        throw FileError(name + ": cannot read: the file is " + std::to_string(static_cast<std::uintmax_t>(size)) +
+                        " bytes, above the limit of 64 MiB for one pattern");
     if (size > 0) {
         text.resize(static_cast<std::size_t>(size));
         in.seekg(0);

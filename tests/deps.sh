@@ -5,7 +5,8 @@ mudepth_install_deps() {
     local packages=(cmake make g++ pkg-config libboost-math-dev libboost-dev libeigen3-dev
                     libcli11-dev nlohmann-json3-dev libtomlplusplus-dev)
     if [ "${1:-build}" = test ]; then
-        packages+=(libgtest-dev libxrl-dev python3-periodictable librsvg2-bin)
+        packages+=(libgtest-dev libxrl-dev python3-periodictable librsvg2-bin clang-14 libclang-rt-14-dev
+                   pybind11-dev python3-dev python3-numpy python3-pytest)
     fi
     local missing=()
     for p in "${packages[@]}"; do

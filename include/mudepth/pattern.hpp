@@ -4,6 +4,7 @@
 #pragma once
 
 #include <cstddef>
+#include <cstdint>
 #include <filesystem>
 #include <functional>
 #include <iosfwd>
@@ -55,6 +56,10 @@ struct Pattern {
 /// Most points one pattern file may hold.
 inline constexpr std::size_t kMaxPatternPoints = 50'000'000;
 
+/// Largest pattern file read_pattern accepts (64 MiB, some millions of points): reading
+/// takes about six times the file size in memory, per file corrected at once.
+inline constexpr std::uintmax_t kMaxPatternFileBytes = std::uintmax_t{64} << 20;
+
 /// Plain text: two or three columns (2θ in degrees, intensity, optional σ) separated by
 /// white space, commas or semicolons (a semicolon file may use decimal commas); header
 /// lines before the data, `#` and `!` comment lines, blank lines, CRLF endings. Numbers
@@ -75,7 +80,7 @@ Pattern parse_cif_pattern(std::string_view text, const std::string& name);
 /// CIF when the name ends in .cif (any case) or the first item is a `data_` block; else text.
 PatternFormat detect_pattern_format(std::string_view text, const std::string& name);
 
-/// Reads and parses a file; FileError when it cannot be read.
+/// Reads and parses a file; FileError when it cannot be read or is larger than kMaxPatternFileBytes.
 Pattern read_pattern(const std::filesystem::path& path);
 
 /// An extra column written after 2θ, intensity and σ.

@@ -1,6 +1,7 @@
 // Shared options of the computing commands and unit parsing at the boundary.
 #include "cli/common.hpp"
 
+#include <cctype>
 #include <charconv>
 #include <cmath>
 #include <sstream>
@@ -136,6 +137,13 @@ double parse_length_cm(const std::string& option, const std::string& text) {
             break;
         }
     }
+    const std::string lowered = [&] {
+        std::string l = number;
+        for (auto& c : l) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+        return l;
+    }();
+    if (lowered == "nan" || lowered == "inf" || lowered == "-inf" || lowered == "+inf" || lowered == "infinity")
+        throw InputError(option + ": '" + text + "' is not a finite number");
     if (!number.empty() && std::isalpha(static_cast<unsigned char>(number.back())))
         throw InputError(option + ": '" + text + "' has an unknown unit; use nm, um, mm or cm");
     const double value = parse_number(option, number);

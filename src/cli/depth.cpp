@@ -96,6 +96,8 @@ void set_sample(const DepthOptions& o, DepthReport& r) {
                              "sample instead to have refraction applied");
         const double mu = parse_number("--mu", o.mu);
         if (mu <= 0) throw InputError("--mu: " + o.mu + " 1/cm must be positive");
+        // Real samples at 1..500 keV lie within about 1e-7..3e5 1/cm, gases to heavy metals at 1 keV (from memory).
+        if (mu < 1e-8 || mu > 1e6) throw InputError("--mu: " + o.mu + " 1/cm is outside 1e-8..1e6 1/cm");
         r.sample = geometric_sample(mu);
         r.mu_per_cm = mu;
         r.sample_name = "μ = " + fmt(mu, 6) + " 1/cm (given with --mu)";

@@ -9,6 +9,7 @@
 
 #include "cli/commands.hpp"
 #include "cli/common.hpp"
+#include "cli/film_layers.hpp"
 #include "cli/output.hpp"
 #include "cli/plot.hpp"
 #include "mudepth/attenuation.hpp"
@@ -93,6 +94,28 @@ Material resolve(const std::string& where, const std::string& name, const std::s
     return m;
 }
 
+}  // namespace
+
+FilmLayerSpec parse_film_layer(const std::string& spec) {
+    const std::string where = "--layer '" + spec + "'";
+    const auto f = split_commas(spec);
+    if (f.size() < 2 || f.size() > 3)
+        throw InputError(where + ": expected FORMULA_OR_MATERIAL,THICKNESS[,DENSITY], e.g. TiN,2um,5.4");
+    FilmLayerSpec layer;
+    layer.material = resolve(where, f[0], f.size() == 3 ? f[2] : "");
+    layer.thickness_cm = parse_length_cm(where + " thickness", f[1]);
+    return layer;
+}
+
+Material parse_film_substrate(const std::string& spec) {
+    const std::string where = "--substrate '" + spec + "'";
+    const auto f = split_commas(spec);
+    if (f.empty() || f.size() > 2) throw InputError(where + ": expected FORMULA_OR_MATERIAL[,DENSITY]");
+    return resolve(where, f[0], f.size() == 2 ? f[1] : "");
+}
+
+namespace {
+
 Part make_part(const Material& m, const Radiation& rad, CrossSectionTable table) {
     Part p;
     p.name = m.name;
@@ -119,21 +142,13 @@ FilmReport compute(const FilmOptions& o) {
     r.radiation = rad.label;
     r.energy_keV = rad.energy_keV;
     r.wavelength_A = rad.wavelength_A();
-    for (std::size_t i = 0; i < o.layers.size(); ++i) {
-        const std::string where = "--layer '" + o.layers[i] + "'";
-        const auto f = split_commas(o.layers[i]);
-        if (f.size() < 2 || f.size() > 3)
-            throw InputError(where + ": expected FORMULA_OR_MATERIAL,THICKNESS[,DENSITY], e.g. TiN,2um,5.4");
-        Part p = make_part(resolve(where, f[0], f.size() == 3 ? f[2] : ""), rad, table);
-        p.thickness_cm = parse_length_cm(where + " thickness", f[1]);
+    for (const auto& spec : o.layers) {
+        const FilmLayerSpec layer = parse_film_layer(spec);
+        Part p = make_part(layer.material, rad, table);
+        p.thickness_cm = layer.thickness_cm;
         r.layers.push_back(p);
     }
-    {
-        const std::string where = "--substrate '" + o.substrate + "'";
-        const auto f = split_commas(o.substrate);
-        if (f.empty() || f.size() > 2) throw InputError(where + ": expected FORMULA_OR_MATERIAL[,DENSITY]");
-        r.substrate = make_part(resolve(where, f[0], f.size() == 2 ? f[1] : ""), rad, table);
-    }
+    r.substrate = make_part(parse_film_substrate(o.substrate), rad, table);
     FilmStack stack;
     for (const auto& p : r.layers) stack.layers.push_back({sample_of(p, r.wavelength_A), *p.thickness_cm});
     stack.substrate = sample_of(r.substrate, r.wavelength_A);

@@ -5,6 +5,7 @@
 #include <nlohmann/json.hpp>
 
 #include "cli/commands.hpp"
+#include "cli/common.hpp"
 #include "cli/output.hpp"
 #include "mudepth/composition.hpp"
 
@@ -58,7 +59,8 @@ void run_materials(const MaterialsOptions& o) {
 
 void register_materials(CLI::App& sub) {
     auto o = std::make_shared<MaterialsOptions>();
-    sub.add_option("name", o->name, "Show this composition (name or .toml path) instead of the list");
+    sub.add_option("name", o->name, "Show this composition (name or .toml path) instead of the list")
+        ->check(nonempty());
     sub.add_flag("--json", o->json, "Print JSON");
     sub.callback([o] { run_materials(*o); });
 }

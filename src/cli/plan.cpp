@@ -12,6 +12,7 @@
 #include "cli/plot.hpp"
 #include "mudepth/attenuation.hpp"
 #include "mudepth/composition.hpp"
+#include "mudepth/cylinder.hpp"
 #include "mudepth/error.hpp"
 #include "mudepth/plan.hpp"
 
@@ -51,6 +52,8 @@ double parse_area_cm2(const std::string& option, const std::string& text) {
     }
     const double value = parse_number(option, t);
     if (value <= 0) throw InputError(option + ": area '" + text + "' must be positive");
+    if (value * scale > kMaxLength_cm * kMaxLength_cm)
+        throw InputError(option + ": area '" + text + "' is larger than 100 m2");
     return value * scale;
 }
 
@@ -71,6 +74,8 @@ PlanReport compute(const PlanOptions& o) {
     const auto table = build_table(o.table);
     const double target = parse_number("--target-mu-r", o.target_mu_r);
     if (target <= 0) throw InputError("--target-mu-r: the target muR must be positive, not " + o.target_mu_r);
+    if (target > kMaxCylinderMuR)
+        throw InputError("--target-mu-r: " + o.target_mu_r + " is above 30, the largest muR mudepth handles");
     Material diluent = find_composition(o.diluent).material;
     const double dilution_diameter_cm = parse_length_cm("--diameter", o.diameter);
     const double two_theta_max = parse_number("--two-theta-max", o.two_theta_max);
