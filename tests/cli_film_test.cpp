@@ -87,11 +87,7 @@ class CliFilmRefusal : public ::testing::TestWithParam<Refusal> {};
 TEST_P(CliFilmRefusal, ExitsTwoWithOneLine) {
     const auto& p = GetParam();
     const auto r = run_mudepth(p.args);
-    EXPECT_EQ(r.status, 2) << r.err;
-    EXPECT_TRUE(r.out.empty()) << r.out;
-    EXPECT_EQ(r.err.rfind("mudepth: error: ", 0), 0u) << r.err;
-    EXPECT_EQ(std::count(r.err.begin(), r.err.end(), '\n'), 1) << r.err;
-    EXPECT_NE(r.err.find(p.message), std::string::npos) << r.err;
+    expect_refusal(r, p.message);
 }
 
 std::vector<std::string> film(std::vector<std::string> more) {

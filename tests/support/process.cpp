@@ -5,6 +5,7 @@
 #include <sys/wait.h>
 #include <unistd.h>
 
+#include <algorithm>
 #include <cstdlib>
 #include <fstream>
 #include <sstream>
@@ -76,6 +77,14 @@ nlohmann::json run_json(const std::vector<std::string>& args) {
         ADD_FAILURE() << "not JSON: " << e.what() << "\n" << r.out;
         return {};
     }
+}
+
+void expect_refusal(const RunResult& r, const std::string& message, int status) {
+    EXPECT_EQ(r.status, status) << r.err;
+    EXPECT_TRUE(r.out.empty()) << r.out;
+    EXPECT_EQ(r.err.rfind("mudepth: error: ", 0), 0u) << r.err;
+    EXPECT_EQ(std::count(r.err.begin(), r.err.end(), '\n'), 1) << r.err;
+    EXPECT_NE(r.err.find(message), std::string::npos) << r.err;
 }
 
 RunResult run_shell(const std::string& command_line) {
