@@ -197,12 +197,7 @@ void register_cylinder(CLI::App& sub) {
     sub.callback([o] {
         const CylinderReport r = compute(*o);
         if (!o->plot.empty()) write_svg(cylinder_plot(r), o->plot);
-        if (o->json)
-            print_json(r);
-        else if (o->csv)
-            print_csv(r);
-        else
-            print_human(r);
+        print_report(r, o->json, o->csv, print_json, print_csv, print_human);
     });
 }
 

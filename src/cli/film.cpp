@@ -310,12 +310,7 @@ void register_film(CLI::App& sub) {
     sub.callback([o] {
         const FilmReport r = compute(*o);
         if (!o->plot.empty()) write_svg(film_plot(r), o->plot);
-        if (o->json)
-            print_json(r);
-        else if (o->csv)
-            print_csv(r);
-        else
-            print_human(r);
+        print_report(r, o->json, o->csv, print_json, print_csv, print_human);
     });
 }
 

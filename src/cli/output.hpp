@@ -34,6 +34,17 @@ private:
 /// Two-column "label  value" lines.
 void print_field(std::ostream& out, const std::string& label, const std::string& value);
 
+/// Prints a report as JSON, CSV or the human table, as the command's flags choose.
+template <class Report, class Json, class Csv, class Human>
+void print_report(const Report& report, bool json, bool csv, Json print_json, Csv print_csv, Human print_human) {
+    if (json)
+        print_json(report);
+    else if (csv)
+        print_csv(report);
+    else
+        print_human(report);
+}
+
 /// SPEC §5 cautions, for the README and the --help of commands printing transmissions.
 extern const char* const kCautions;
 

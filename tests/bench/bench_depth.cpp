@@ -4,6 +4,7 @@
 #include <cstdio>
 #include <vector>
 
+#include "timing.hpp"
 #include "mudepth/attenuation.hpp"
 #include "mudepth/depth.hpp"
 #include "mudepth/formula.hpp"
@@ -12,12 +13,7 @@
 
 namespace {
 
-template <class F>
-double seconds(F&& f) {
-    const auto start = std::chrono::steady_clock::now();
-    f();
-    return std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
-}
+using mudepth::bench::seconds;
 
 }  // namespace
 

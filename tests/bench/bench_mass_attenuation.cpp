@@ -6,18 +6,14 @@
 #include <cstdio>
 #include <vector>
 
+#include "timing.hpp"
 #include "mudepth/attenuation.hpp"
 #include "mudepth/energy_grid.hpp"
 #include "mudepth/formula.hpp"
 
 namespace {
 
-template <class F>
-double seconds(F&& f) {
-    const auto start = std::chrono::steady_clock::now();
-    f();
-    return std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
-}
+using mudepth::bench::seconds;
 
 }  // namespace
 
