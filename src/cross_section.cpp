@@ -190,6 +190,10 @@ std::string_view to_string(CrossSectionTable table) {
     return table == CrossSectionTable::chantler ? "chantler" : "elam";
 }
 
+std::string_view citation(CrossSectionTable table) {
+    return table == CrossSectionTable::chantler ? "Chantler 2000, NIST FFAST" : "Elam, Ravel & Sieber 2002";
+}
+
 CrossSectionTable parse_cross_section_table(std::string_view name) {
     if (name == "elam") return CrossSectionTable::elam;
     if (name == "chantler") return CrossSectionTable::chantler;

@@ -451,7 +451,12 @@ std::vector<BadInput> all_rows() {
          // takes some times the file size in memory.
          {pattern("@TMP@/big200.xy"), 3, "big200.xy: cannot read: the file is 200000000 bytes, above the limit of 64 MiB"},
          {line("correct", kCorrect, {{"--output-dir", "@TMP@/afile"}}), 3,
-          "afile: the --output-dir exists and is not a folder"},
+          "afile: is not a folder; give a folder for the corrected files"},
+         {line("correct", {{"@TMP@/good.xy", kFlag}, {"--geometry", "cylinder"}, {"--mu-r", "1"},
+                           {"--mu-r-container", "0.1"}, {"--radius-ratio", "1.1"}, {"--empty", "@TMP@/good.xy"},
+                           {"--output-dir", "@TMP@/out"}},
+               {}),
+          2, "good.xy: is also the empty-container scan; give it only as the empty container"},
          {line("correct", kCorrect, {{"--output-dir", "@TMP@/afile/sub"}}), 3,
           "afile/sub: cannot create the output folder: Not a directory"},
          {line("correct", kCorrect, {{"--output-dir", "@TMP@/readonly"}}), 3, "Permission denied", true}});

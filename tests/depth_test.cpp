@@ -19,6 +19,7 @@
 #include "mudepth/formula.hpp"
 #include "mudepth/radiation.hpp"
 #include "mudepth/refraction.hpp"
+#include "support/input_error.hpp"
 
 namespace mudepth {
 namespace {
@@ -323,14 +324,7 @@ TEST(DepthTransparency, ThinAndThickLimits) {
 
 // ---------------------------------------------------------------- refusals
 
-void expect_input_error(auto f, const std::string& text) {
-    try {
-        f();
-        ADD_FAILURE() << "no error; expected: " << text;
-    } catch (const InputError& e) {
-        EXPECT_NE(std::string(e.what()).find(text), std::string::npos) << e.what();
-    }
-}
+using test::expect_input_error;
 
 TEST(DepthErrors, Messages) {
     expect_input_error([] { fixed_incidence_depth_1e_um(10, 30, 35); }, "incidence 35° must be below 2θ = 30°");

@@ -12,6 +12,9 @@ enum class CrossSectionTable { elam, chantler };
 /// "elam" or "chantler".
 std::string_view to_string(CrossSectionTable table);
 
+/// The publication of the table: "Elam, Ravel & Sieber 2002", "Chantler 2000, NIST FFAST".
+std::string_view citation(CrossSectionTable table);
+
 /// Parses "elam" / "chantler"; throws InputError naming the allowed values.
 CrossSectionTable parse_cross_section_table(std::string_view name);
 

@@ -14,9 +14,10 @@ void bind_depth(py::module_& m);        // depth probed in every reflection geom
 void bind_film(py::module_& m);         // layer shares of a film stack
 void bind_plate(py::module_& m);        // flat-plate factors
 void bind_cylinder(py::module_& m);     // capillary and container factors
+void bind_specimen(py::module_& m);     // capillaries and plates with μR, μt, wall, windows
 void bind_filter(py::module_& m);       // Kβ filter foils
 void bind_plan(py::module_& m);         // sample planning
-void bind_correct(py::module_& m);      // file and array correction (not yet available)
+void bind_correct(py::module_& m);      // correcting arrays and pattern files
 
 /// An element given as a symbol ('Fe') or an atomic number; ValueError "unknown element 'X'".
 int atomic_number_of(const py::object& element_or_Z);

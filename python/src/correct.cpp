@@ -1,11 +1,10 @@
 // Bindings: correcting arrays (2θ, intensity, σ) with the geometry options of
-// `mudepth correct`, and reading pattern files. Thin: the factors, σ propagation,
-// container subtraction and normalisation are the library's (mudepth/correct.hpp).
-//
-// Not bound yet: writing corrected files (the command's provenance lines and output
-// naming are still being written with the `correct` command). Read a file with
-// read_pattern(), correct its arrays with correct_pattern(), write them as you like.
+// `mudepth correct`, reading pattern files, and correcting files into corrected
+// copies exactly as the command writes them. Thin: the factors, σ propagation,
+// container subtraction, normalisation, provenance and writing are the library's
+// (mudepth/correct.hpp, mudepth/correct_files.hpp).
 #include <cmath>
+#include <filesystem>
 #include <optional>
 #include <string>
 #include <vector>
@@ -16,6 +15,7 @@
 #include "arrays.hpp"
 #include "bindings.hpp"
 #include "mudepth/correct.hpp"
+#include "mudepth/correct_files.hpp"
 #include "mudepth/error.hpp"
 #include "mudepth/pattern.hpp"
 
@@ -29,11 +29,22 @@ py::array_t<double> to_numpy(const std::vector<double>& v) {
     return a;
 }
 
-CorrectionSetup make_setup(const std::string& geometry, std::optional<double> mu_R, std::optional<double> mu_t,
+CorrectionSetup make_setup(const py::object& geometry, std::optional<double> mu_R, std::optional<double> mu_t,
                            std::optional<double> incidence_deg, std::optional<double> mu_t_window,
                            std::optional<double> mu_R_container, std::optional<double> radius_ratio) {
+    const bool specimen = py::isinstance<CapillarySpecimen>(geometry) || py::isinstance<PlateSpecimen>(geometry);
+    if (specimen) {
+        if (mu_R || mu_t || incidence_deg || mu_t_window || mu_R_container || radius_ratio)
+            throw InputError("a specimen carries its own μR or μt, incidence, wall and windows; give no other "
+                             "geometry arguments with it");
+        return py::isinstance<CapillarySpecimen>(geometry) ? correction_setup(geometry.cast<CapillarySpecimen>())
+                                                           : correction_setup(geometry.cast<PlateSpecimen>());
+    }
+    if (!py::isinstance<py::str>(geometry))
+        throw py::type_error("geometry: expected 'cylinder', 'reflection', 'transmission-normal', "
+                             "'transmission-symmetric', a CapillarySpecimen or a PlateSpecimen");
     CorrectionSetup s;
-    s.geometry = parse_correction_geometry(geometry);
+    s.geometry = parse_correction_geometry(geometry.cast<std::string>());
     const bool cylinder = s.geometry == CorrectionGeometry::cylinder;
     if (cylinder) {
         if (!mu_R) throw InputError("the cylinder geometry needs mu_R (μ × sample radius)");
@@ -52,6 +63,39 @@ CorrectionSetup make_setup(const std::string& geometry, std::optional<double> mu
         s.mu_t_window = mu_t_window;
     }
     return s;
+}
+
+/// One path (str or os.PathLike) or a sequence of them.
+std::vector<std::filesystem::path> as_paths(const py::object& paths) {
+    if (py::isinstance<py::str>(paths) || py::hasattr(paths, "__fspath__"))
+        return {paths.cast<std::filesystem::path>()};
+    if (py::isinstance<py::bytes>(paths) || !py::isinstance<py::sequence>(paths))
+        throw py::type_error("paths: expected a path (str or os.PathLike) or a list of paths");
+    return paths.cast<std::vector<std::filesystem::path>>();
+}
+
+/// What the provenance header records as the command: the Python script and its arguments.
+std::string python_command() {
+    const py::list argv = py::module_::import("sys").attr("argv");
+    const std::string text = "mudepth.correct_files() in Python";
+    const std::string script = argv.size() > 0 ? argv[0].cast<std::string>() : std::string();
+    if (script.empty()) return text + ", interactive";
+    if (script == "-c") return text + " (python3 -c)";
+    return text + ", script: " + py::module_::import("shlex").attr("join")(argv).cast<std::string>();
+}
+
+py::dict result_dict(const FileCorrectionResult& r) {
+    static const char* const kOutcome[] = {"written", "bad_input", "file_error", "internal_error"};
+    py::dict d;
+    d["input"] = r.input.string();
+    d["output"] = r.output.string();
+    d["outcome"] = kOutcome[static_cast<int>(r.outcome)];
+    const bool written = r.outcome == FileOutcome::written;
+    d["error"] = written ? py::object(py::none()) : py::object(py::str(r.error));
+    d["read_summary"] = written ? py::object(py::str(r.read_summary)) : py::object(py::none());
+    d["correction_min"] = written ? py::object(py::float_(r.correction_min)) : py::object(py::none());
+    d["correction_max"] = written ? py::object(py::float_(r.correction_max)) : py::object(py::none());
+    return d;
 }
 
 /// A Pattern from arrays, checked as the file readers check theirs (same lengths, finite,
@@ -90,7 +134,7 @@ Pattern make_pattern(const std::string& name, const py::object& two_theta_deg, c
 void bind_correct(py::module_& m) {
     m.def(
         "correction_factors",
-        [](const py::object& two_theta_deg, const std::string& geometry, std::optional<double> mu_R,
+        [](const py::object& two_theta_deg, const py::object& geometry, std::optional<double> mu_R,
            std::optional<double> mu_t, std::optional<double> incidence_deg, std::optional<double> mu_t_window,
            std::optional<double> mu_R_container, std::optional<double> radius_ratio) {
             const CorrectionSetup s =
@@ -109,12 +153,13 @@ void bind_correct(py::module_& m) {
         "The factor that multiplies the measured intensity at each 2θ (degrees), the `correction` of\n"
         "`mudepth cylinder` / `mudepth plate`: geometry 'cylinder' (mu_R; with mu_R_container and\n"
         "radius_ratio the wall, factor 1/A_s,sc), 'reflection' (mu_t, incidence_deg), 'transmission-normal'\n"
-        "or 'transmission-symmetric' (mu_t; mu_t_window = one window foil's μt).");
+        "or 'transmission-symmetric' (mu_t; mu_t_window = one window foil's μt); or a CapillarySpecimen or\n"
+        "PlateSpecimen (capillary(), plate(), ...), which carries all of these.");
 
     m.def(
         "correct_pattern",
         [](const py::object& two_theta_deg, const py::object& intensity, const py::object& sigma,
-           const std::string& geometry, std::optional<double> mu_R, std::optional<double> mu_t,
+           const py::object& geometry, std::optional<double> mu_R, std::optional<double> mu_t,
            std::optional<double> incidence_deg, std::optional<double> mu_t_window,
            std::optional<double> mu_R_container, std::optional<double> radius_ratio, const std::string& normalization,
            const py::object& empty, double empty_scale) {
@@ -174,6 +219,70 @@ void bind_correct(py::module_& m) {
         "Reads a measured pattern: plain-text columns (2θ in degrees, intensity, optional σ) or pdCIF.\n"
         "Dict 'name', 'format', 'two_theta_deg', 'intensity', 'sigma' (None when the file has none).\n"
         "OSError when the file cannot be read, ValueError 'NAME:LINE: what' when it is malformed.");
+
+    m.def(
+        "correct_files",
+        [](const py::object& paths, const std::filesystem::path& output_dir, const py::object& specimen,
+           const std::string& normalization, std::optional<std::filesystem::path> empty, double empty_scale,
+           bool force, std::optional<std::size_t> jobs, std::optional<std::string> command, bool raise_on_error) {
+            FileCorrectionSettings settings;
+            if (py::isinstance<CapillarySpecimen>(specimen)) {
+                const auto c = specimen.cast<CapillarySpecimen>();
+                settings.setup = correction_setup(c);
+                settings.description = provenance_lines(c);
+                settings.warnings = c.warnings;
+            } else if (py::isinstance<PlateSpecimen>(specimen)) {
+                const auto p = specimen.cast<PlateSpecimen>();
+                settings.setup = correction_setup(p);
+                settings.description = provenance_lines(p);
+            } else {
+                throw py::type_error("specimen: expected a CapillarySpecimen or a PlateSpecimen (capillary(), "
+                                     "capillary_from_mu_R(), plate(), plate_from_mu_t())");
+            }
+            settings.normalization = parse_normalization(normalization);
+            settings.empty_file = empty;
+            settings.empty_scale = empty_scale;
+            settings.command = command ? *command : python_command();
+            settings.replace_existing = force;
+            settings.replace_hint = "give force=True to replace it";
+            settings.jobs = jobs.value_or(0);
+            const std::vector<std::filesystem::path> inputs = as_paths(paths);
+            std::vector<FileCorrectionResult> results;
+            {
+                py::gil_scoped_release release;
+                results = correct_pattern_files(inputs, output_dir, settings);
+            }
+            py::list out;
+            for (const auto& r : results) out.append(result_dict(r));
+            if (raise_on_error) {
+                try {
+                    throw_failures(results, output_dir);
+                } catch (const Error& e) {
+                    // The command line's message; every file's result rides along on the exception.
+                    const bool file = dynamic_cast<const FileError*>(&e) != nullptr;
+                    const py::object type = py::module_::import("mudepth").attr(file ? "FileError" : "InputError");
+                    const py::object error = type(e.what());
+                    error.attr("results") = out;
+                    PyErr_SetObject(type.ptr(), error.ptr());
+                    throw py::error_already_set();
+                }
+            }
+            return out;
+        },
+        py::arg("paths"), py::kw_only(), py::arg("output_dir"), py::arg("specimen"), py::arg("normalization") = "none",
+        py::arg("empty") = py::none(), py::arg("empty_scale") = 1.0, py::arg("force") = false,
+        py::arg("jobs") = py::none(), py::arg("command") = py::none(), py::arg("raise_on_error") = true,
+        "Corrects pattern files (plain-text columns or pdCIF; one path or a list) into\n"
+        "output_dir/<stem>.corrected.<ext>, as `mudepth correct FILE... --output-dir DIR` does: the same\n"
+        "columns, the same provenance header (its 'command:' line names this script, or `command`), written\n"
+        "atomically, never over an input, files in parallel (jobs; default one per core).\n"
+        "specimen: a CapillarySpecimen (geometry cylinder, with its wall) or a PlateSpecimen (its mode,\n"
+        "incidence and windows). normalization 'none', 'max' or 'at:2THETA'. empty: the empty-container\n"
+        "file (a capillary with its wall), scaled by empty_scale. force=True replaces existing outputs.\n"
+        "Returns one dict per input: 'input', 'output', 'outcome' ('written', 'bad_input', 'file_error',\n"
+        "'internal_error'), 'error', 'read_summary', 'correction_min', 'correction_max'. When a file fails\n"
+        "(and raise_on_error) the others are still written, then InputError or FileError is raised with the\n"
+        "command line's message and the list as its `results` attribute.");
 }
 
 }  // namespace mudepth::python

@@ -42,6 +42,7 @@ PYBIND11_MODULE(mudepth, m) {
     bind_film(m);
     bind_plate(m);
     bind_cylinder(m);
+    bind_specimen(m);
     bind_filter(m);
     bind_plan(m);
     bind_correct(m);

@@ -33,10 +33,10 @@ struct CylinderOptions {
     std::string plot;
 };
 
-using Wall = ContainerWall;
+using Wall = CapillaryWall;
 
 /// The sample and wall (shared with `correct`) and the factors at each angle.
-struct CylinderReport : CylinderSample {
+struct CylinderReport : CapillarySpecimen {
     std::vector<double> angles_deg;
     std::vector<double> transmission;
     std::vector<ContainerFactors> factors;
@@ -44,7 +44,7 @@ struct CylinderReport : CylinderSample {
 
 CylinderReport compute(const CylinderOptions& o) {
     CylinderReport r;
-    static_cast<CylinderSample&>(r) = resolve_cylinder(o.sample, o.radiation, o.table, o.geometry);
+    static_cast<CapillarySpecimen&>(r) = resolve_cylinder(o.sample, o.radiation, o.table, o.geometry);
 
     r.angles_deg = parse_angles_deg("--two-theta", o.two_theta.empty() ? kDefaultAngles : o.two_theta);
     for (double a : r.angles_deg)
@@ -93,7 +93,7 @@ void print_json(const CylinderReport& r) {
     j["radiation"] = r.radiation.empty() ? nlohmann::json() : nlohmann::json(r.radiation);
     j["energy_keV"] = optional_json(r.energy_keV);
     j["mu_per_cm"] = optional_json(r.mu_per_cm);
-    j["diameter_mm"] = r.diameter_cm ? nlohmann::json(*r.diameter_cm * 10) : nlohmann::json();
+    j["diameter_mm"] = r.inner_diameter_cm ? nlohmann::json(*r.inner_diameter_cm * 10) : nlohmann::json();
     j["mu_R"] = r.mu_R;
     if (r.wall) {
         const Wall& w = *r.wall;
@@ -145,7 +145,7 @@ void print_human(const CylinderReport& r) {
     if (r.mu_per_cm) {
         print_field(out, "Radiation", r.radiation);
         print_field(out, "μ", fmt(*r.mu_per_cm, 5) + " 1/cm (1/μ = " + length_from_um(1e4 / *r.mu_per_cm) + ")");
-        print_field(out, "Inner diameter", fmt(*r.diameter_cm * 10, 5) + " mm");
+        print_field(out, "Inner diameter", fmt(*r.inner_diameter_cm * 10, 5) + " mm");
     }
     print_field(out, "μR", fmt(r.mu_R, 5));
     if (r.wall) {

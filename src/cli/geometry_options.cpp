@@ -1,11 +1,12 @@
 // The shared sample-and-geometry options of cylinder, plate and correct.
 #include "cli/geometry_options.hpp"
 
+#include <optional>
+
 #include "cli/output.hpp"
-#include "mudepth/attenuation.hpp"
 #include "mudepth/composition.hpp"
-#include "mudepth/cylinder.hpp"
 #include "mudepth/error.hpp"
+#include "mudepth/specimen.hpp"
 
 namespace mudepth::cli {
 
@@ -32,34 +33,24 @@ bool any_given(const CylinderGeometryOptions& o) {
            !o.mu_R_container.empty() || !o.radius_ratio.empty();
 }
 
-CylinderSample resolve_cylinder(const SampleOptions& sample, const RadiationOptions& radiation_options,
-                                const std::string& table, const CylinderGeometryOptions& o) {
-    CylinderSample r;
-    const bool direct = !o.mu_R.empty();
-    std::optional<Radiation> radiation;
-    if (direct) {
+CapillarySpecimen resolve_cylinder(const SampleOptions& sample, const RadiationOptions& radiation_options,
+                                   const std::string& table, const CylinderGeometryOptions& o) {
+    std::optional<CapillarySpecimen> c;
+    if (!o.mu_R.empty()) {
         if (has_material(sample)) throw InputError("--mu-r gives μR directly; do not combine it with a sample material");
         if (!o.diameter.empty()) throw InputError("give either --mu-r or --diameter, not both");
-        r.mu_R = parse_number("--mu-r", o.mu_R);
-        if (r.mu_R <= 0) throw InputError("--mu-r: μR = " + o.mu_R + " must be positive");
-        r.sample = "given as μR";
+        const double mu_R = parse_number("--mu-r", o.mu_R);
+        if (mu_R <= 0) throw InputError("--mu-r: μR = " + o.mu_R + " must be positive");
+        c = capillary_from_mu_R(mu_R);
     } else {
         if (!has_material(sample))
             throw InputError("no sample given; use --mu-r, or a material (--formula, --material) with --diameter");
         if (o.diameter.empty()) throw InputError("the material route needs --diameter (inner diameter of the capillary)");
         const Material m = build_material(sample);
-        radiation = build_radiation(radiation_options);
-        r.diameter_cm = parse_length_cm("--diameter", o.diameter);
-        r.sample = m.name;
-        r.density_g_cm3 = m.density_g_cm3();
-        r.energy_keV = radiation->energy_keV;
-        r.radiation = radiation->label;
-        r.mu_per_cm = linear_attenuation_per_cm(m, radiation->energy_keV, build_table(table));
-        r.mu_R = *r.mu_per_cm * *r.diameter_cm / 2;
+        const Radiation radiation = build_radiation(radiation_options);
+        const double diameter_cm = parse_length_cm("--diameter", o.diameter);
+        c = capillary_from_material(m, radiation, diameter_cm, build_table(table));
     }
-    if (r.mu_R > kMaxCylinderMuR)
-        throw InputError("μR = " + fmt(r.mu_R, 5) +
-                         " is above 30: too absorbing for a capillary; use a thinner capillary or dilute the sample");
 
     const bool wall_by_material = !o.container_material.empty() || !o.wall.empty();
     const bool wall_direct = !o.mu_R_container.empty() || !o.radius_ratio.empty();
@@ -69,35 +60,22 @@ CylinderSample resolve_cylinder(const SampleOptions& sample, const RadiationOpti
     if (wall_by_material) {
         if (o.container_material.empty() || o.wall.empty())
             throw InputError("a container wall needs both --container-material and --wall");
-        if (direct)
+        if (!o.mu_R.empty())
             throw InputError("--container-material needs the sample's --diameter; with --mu-r use --mu-r-container "
                              "and --radius-ratio");
-        ContainerWall w;
-        const Composition c = find_composition(o.container_material);
-        w.material = c.name;
-        w.thickness_cm = parse_length_cm("--wall", o.wall);
-        w.mu_per_cm = linear_attenuation_per_cm(c.material, radiation->energy_keV, build_table(table));
-        const double radius_cm = *r.diameter_cm / 2;
-        w.mu_R = *w.mu_per_cm * radius_cm;
-        w.radius_ratio = (radius_cm + *w.thickness_cm) / radius_cm;
-        r.wall = w;
+        const Composition wall = find_composition(o.container_material);
+        c = with_wall(std::move(*c), wall.material, parse_length_cm("--wall", o.wall));
     } else if (wall_direct) {
         if (o.mu_R_container.empty() || o.radius_ratio.empty())
             throw InputError("a container wall needs both --mu-r-container and --radius-ratio");
-        ContainerWall w;
-        w.mu_R = parse_number("--mu-r-container", o.mu_R_container);
-        if (w.mu_R < 0) throw InputError("--mu-r-container: " + o.mu_R_container + " must be zero or positive");
-        w.radius_ratio = parse_number("--radius-ratio", o.radius_ratio);
-        if (w.radius_ratio <= 1)
+        const double wall_mu_R = parse_number("--mu-r-container", o.mu_R_container);
+        if (wall_mu_R < 0) throw InputError("--mu-r-container: " + o.mu_R_container + " must be zero or positive");
+        const double radius_ratio = parse_number("--radius-ratio", o.radius_ratio);
+        if (radius_ratio <= 1)
             throw InputError("--radius-ratio: " + o.radius_ratio + " must be above 1 (outer wall radius over sample radius)");
-        r.wall = w;
+        c = with_wall(std::move(*c), wall_mu_R, radius_ratio);
     }
-    // μR about 1 or below is the usual aim for capillaries (common practice).
-    if (r.mu_R > 3)
-        r.warnings.push_back("μR = " + fmt(r.mu_R, 4) +
-                             " is high: the correction varies strongly with 2θ; a thinner capillary or a diluted "
-                             "sample (μR near 1) is the usual choice");
-    return r;
+    return *c;
 }
 
 void add_plate_thickness_options(CLI::App& sub, PlateGeometryOptions& o) {
@@ -124,65 +102,51 @@ bool any_given(const PlateGeometryOptions& o) {
            !o.window_thickness.empty() || !o.mu_t_window.empty();
 }
 
-PlateSample resolve_plate(PlateMode mode, const SampleOptions& sample, const RadiationOptions& radiation_options,
-                          const std::string& table, const PlateGeometryOptions& o) {
-    PlateSample r;
-    r.mode = mode;
+PlateSpecimen resolve_plate(PlateMode mode, const SampleOptions& sample, const RadiationOptions& radiation_options,
+                            const std::string& table, const PlateGeometryOptions& o) {
+    std::optional<double> incidence_deg;
     if (!o.incidence.empty()) {
-        if (r.mode != PlateMode::reflection)
-            throw InputError("--incidence applies to reflection only, not to " + std::string(to_string(r.mode)));
-        r.incidence_deg = parse_number("--incidence", o.incidence);
+        if (mode != PlateMode::reflection)
+            throw InputError("--incidence applies to reflection only, not to " + std::string(to_string(mode)));
+        incidence_deg = parse_number("--incidence", o.incidence);
     }
     const bool direct = !o.mu_t.empty();
-    const bool needs_radiation = !direct || !o.window_material.empty();
     if (!direct && !has_material(sample))
         throw InputError("no sample given; use --mu-t, or a material (--formula, --material) with --thickness");
     std::optional<Radiation> radiation;
-    if (needs_radiation) {
-        radiation = build_radiation(radiation_options);
-        r.radiation = radiation->label;
-        r.energy_keV = radiation->energy_keV;
-    }
+    if (!direct || !o.window_material.empty()) radiation = build_radiation(radiation_options);
+    std::optional<PlateSpecimen> p;
     if (direct) {
         if (has_material(sample)) throw InputError("--mu-t gives μt directly; do not combine it with a sample material");
         if (!o.thickness.empty()) throw InputError("give either --mu-t or --thickness, not both");
-        r.mu_t = parse_number("--mu-t", o.mu_t);
-        if (r.mu_t <= 0) throw InputError("--mu-t: μt = " + o.mu_t + " must be positive");
-        if (r.mu_t > kMaxDirectMuT) throw InputError("--mu-t: μt = " + o.mu_t + " is above the limit 1e6");
-        r.sample = "given as μt";
+        const double mu_t = parse_number("--mu-t", o.mu_t);
+        if (mu_t <= 0) throw InputError("--mu-t: μt = " + o.mu_t + " must be positive");
+        if (mu_t > kMaxPlateMuT) throw InputError("--mu-t: μt = " + o.mu_t + " is above the limit 1e6");
+        p = plate_from_mu_t(mode, mu_t);
     } else {
-        if (!has_material(sample))
-            throw InputError("no sample given; use --mu-t, or a material (--formula, --material) with --thickness");
         if (o.thickness.empty()) throw InputError("the material route needs --thickness (the plate's thickness)");
         const Material m = build_material(sample);
-        r.thickness_cm = parse_length_cm("--thickness", o.thickness);
-        r.sample = m.name;
-        r.density_g_cm3 = m.density_g_cm3();
-        r.mu_per_cm = linear_attenuation_per_cm(m, radiation->energy_keV, build_table(table));
-        r.mu_t = *r.mu_per_cm * *r.thickness_cm;
+        const double thickness_cm = parse_length_cm("--thickness", o.thickness);
+        p = plate_from_material(mode, m, *radiation, thickness_cm, build_table(table));
     }
+    if (incidence_deg) p = with_incidence(std::move(*p), *incidence_deg);
+
     const bool window_material = !o.window_material.empty() || !o.window_thickness.empty();
     if (window_material && !o.mu_t_window.empty())
         throw InputError("describe the windows either by --window-material and --window-thickness, or by --mu-t-window");
     if (window_material) {
         if (o.window_material.empty() || o.window_thickness.empty())
             throw InputError("windows need both --window-material and --window-thickness");
-        WindowFoils w;
-        const Composition c = find_composition(o.window_material);
-        w.material = c.name;
-        w.thickness_cm = parse_length_cm("--window-thickness", o.window_thickness);
-        w.mu_per_cm = linear_attenuation_per_cm(c.material, radiation->energy_keV, build_table(table));
-        w.mu_t = *w.mu_per_cm * *w.thickness_cm;
-        r.window = w;
+        const Composition foil = find_composition(o.window_material);
+        const double foil_cm = parse_length_cm("--window-thickness", o.window_thickness);
+        p = with_windows(std::move(*p), foil.material, foil_cm, *radiation, build_table(table));
     } else if (!o.mu_t_window.empty()) {
-        WindowFoils w;
-        w.mu_t = parse_number("--mu-t-window", o.mu_t_window);
-        if (w.mu_t <= 0) throw InputError("--mu-t-window: " + o.mu_t_window + " must be positive");
-        if (w.mu_t > kMaxDirectMuT)
-            throw InputError("--mu-t-window: " + o.mu_t_window + " is above the limit 1e6");
-        r.window = w;
+        const double mu_t_window = parse_number("--mu-t-window", o.mu_t_window);
+        if (mu_t_window <= 0) throw InputError("--mu-t-window: " + o.mu_t_window + " must be positive");
+        if (mu_t_window > kMaxPlateMuT) throw InputError("--mu-t-window: " + o.mu_t_window + " is above the limit 1e6");
+        p = with_windows(std::move(*p), mu_t_window);
     }
-    return r;
+    return *p;
 }
 
 }  // namespace mudepth::cli

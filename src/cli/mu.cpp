@@ -150,9 +150,7 @@ void print_human(const MuReport& r) {
     const bool by_energy = r.radiation.label.ends_with("keV");
     print_field(out, "Radiation", (by_energy ? "" : r.radiation.label + ": ") + fmt(r.radiation.energy_keV, 6) +
                                       " keV, " + fmt(r.radiation.wavelength_A(), 7) + " Å");
-    print_field(out, "Cross sections", std::string(to_string(a.table)) +
-                                           (a.table == CrossSectionTable::elam ? " (Elam, Ravel & Sieber 2002)"
-                                                                               : " (Chantler 2000, NIST FFAST)"));
+    print_field(out, "Cross sections", std::string(to_string(a.table)) + " (" + std::string(citation(a.table)) + ")");
     out << '\n';
     print_field(out, "μ/ρ total", fmt(a.mass_attenuation.total_cm2_g(), 5) + " cm²/g");
     print_field(out, "  photoelectric", fmt(a.mass_attenuation.photoelectric_cm2_g, 5) + " cm²/g");

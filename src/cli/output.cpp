@@ -7,6 +7,8 @@
 #include <cstdio>
 #include <ostream>
 
+#include "format.hpp"
+
 namespace mudepth::cli {
 
 const char* const kCautions =
@@ -15,11 +17,7 @@ const char* const kCautions =
     "rules and your radiation safety officer. Many powders are toxic or respirable (compounds of\n"
     "Be, Pb, Cd, Tl, As, and fine silica): follow the safety data sheet. Capillaries are glass sharps.";
 
-std::string fmt(double value, int digits) {
-    char buffer[64];
-    std::snprintf(buffer, sizeof buffer, "%.*g", digits, value);
-    return buffer;
-}
+std::string fmt(double value, int digits) { return format_number(value, digits); }
 
 std::string fixed(double value, int decimals) {
     char buffer[64];
@@ -27,11 +25,7 @@ std::string fixed(double value, int decimals) {
     return buffer;
 }
 
-std::string length_from_um(double length_um, int digits) {
-    if (std::abs(length_um) < 1.0) return fmt(length_um * 1e3, digits) + " nm";
-    if (std::abs(length_um) < 1000.0) return fmt(length_um, digits) + " µm";
-    return fmt(length_um / 1e3, digits) + " mm";
-}
+std::string length_from_um(double length_um, int digits) { return format_length_um(length_um, digits); }
 
 namespace {
 

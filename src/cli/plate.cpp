@@ -41,7 +41,7 @@ struct Point {
 };
 
 /// The sample, mode and windows (shared with `correct`) and the points.
-struct PlateReport : PlateSample {
+struct PlateReport : PlateSpecimen {
     std::vector<Point> points;
     struct Infinite {
         double fraction, mu_t;
@@ -59,7 +59,7 @@ std::vector<double> default_angles(PlateMode mode, std::optional<double> inciden
 
 PlateReport compute(const PlateOptions& o) {
     PlateReport r;
-    static_cast<PlateSample&>(r) = resolve_plate(parse_plate_mode(o.mode), o.sample, o.radiation, o.table, o.geometry);
+    static_cast<PlateSpecimen&>(r) = resolve_plate(parse_plate_mode(o.mode), o.sample, o.radiation, o.table, o.geometry);
 
     const auto angles = o.two_theta.empty() ? default_angles(r.mode, r.incidence_deg)
                                             : parse_angles_deg("--two-theta", o.two_theta);
