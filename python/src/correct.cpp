@@ -76,8 +76,11 @@ std::vector<std::filesystem::path> as_paths(const py::object& paths) {
 
 /// What the provenance header records as the command: the Python script and its arguments.
 std::string python_command() {
-    const py::list argv = py::module_::import("sys").attr("argv");
     const std::string text = "mudepth.correct_files() in Python";
+    const py::module_ sys = py::module_::import("sys");
+    if (!py::hasattr(sys, "argv") || !py::isinstance<py::list>(sys.attr("argv"))) return text;  // embedded
+    py::list argv;
+    for (const py::handle arg : sys.attr("argv").cast<py::list>()) argv.append(py::str(arg));
     const std::string script = argv.size() > 0 ? argv[0].cast<std::string>() : std::string();
     if (script.empty()) return text + ", interactive";
     if (script == "-c") return text + " (python3 -c)";
