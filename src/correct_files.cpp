@@ -122,6 +122,21 @@ std::vector<std::string> provenance_lines(const PlateSpecimen& p) {
     return lines;
 }
 
+FileCorrectionSettings file_correction_settings(const CapillarySpecimen& c) {
+    FileCorrectionSettings s;
+    s.setup = correction_setup(c);
+    s.description = provenance_lines(c);
+    s.warnings = c.warnings;
+    return s;
+}
+
+FileCorrectionSettings file_correction_settings(const PlateSpecimen& p) {
+    FileCorrectionSettings s;
+    s.setup = correction_setup(p);
+    s.description = provenance_lines(p);
+    return s;
+}
+
 std::string read_summary(const Pattern& p) {
     const auto& r = p.report;
     std::string s = std::to_string(r.data_rows) + " points from " + std::to_string(r.lines) + " lines";
@@ -172,14 +187,14 @@ struct Batch {
 };
 
 /// The provenance lines of one output, first to last.
-std::vector<std::string> provenance_of(const Batch& b, const fs::path& input, const Pattern& p,
-                                       const CorrectedPattern& c) {
+std::vector<std::string> provenance_of(const Batch& b, const fs::path& input, const std::string& input_summary,
+                                       const Pattern& p, const CorrectedPattern& c) {
     const FileCorrectionSettings& s = b.settings;
     std::vector<std::string> prov;
     prov.push_back("mudepth " + std::string(kVersion) + " correct: absorption-corrected powder pattern");
     prov.push_back("command: " + s.command);
     prov.push_back("date: " + b.date + " (UTC)");
-    prov.push_back("input: " + input.string() + " (unchanged): " + read_summary(p));
+    prov.push_back("input: " + input.string() + " (unchanged): " + input_summary);
     prov.insert(prov.end(), b.shared_provenance.begin(), b.shared_provenance.end());
     const Normalization& nm = s.normalization;
     if (nm.mode == NormalizationMode::none)
@@ -208,17 +223,9 @@ FileCorrectionResult correct_one(const Batch& b, const fs::path& input, const fs
     r.input = input;
     r.output = output;
     try {
-        std::error_code ec;
-        bool is_input = false;
-        if (fs::exists(output, ec))
-            for (const auto& in : inputs) {
-                std::error_code eq;
-                is_input = is_input || fs::equivalent(output, in, eq);
-            }
-        if (!s.replace_existing && !is_input && fs::exists(output, ec))
-            throw FileError(output.string() + ": exists; " + s.replace_hint);
-        check_output_path(output, inputs, s.replace_existing);
+        check_output_path(output, inputs, s.replace_existing, s.replace_hint);
         const Pattern p = read_pattern(input);
+        r.read_summary = read_summary(p);
         CorrectionOptions options;
         options.normalization = s.normalization;
         options.empty_scale = s.empty_scale;
@@ -228,10 +235,9 @@ FileCorrectionResult correct_one(const Batch& b, const fs::path& input, const fs
         std::vector<PatternColumn> extra;
         extra.push_back({"correction", "_mudepth_absorption_correction", c.correction});
         if (!c.subtracted.empty()) extra.push_back({"empty_subtracted", "_mudepth_empty_subtracted", c.subtracted});
-        const std::string text = render_pattern(p, c.intensity, c.sigma, extra, provenance_of(b, input, p, c));
+        const std::string text = render_pattern(p, c.intensity, c.sigma, extra, provenance_of(b, input, r.read_summary, p, c));
         write_file_atomically(output, text, s.replace_existing);
         const auto [lo, hi] = std::minmax_element(c.correction.begin(), c.correction.end());
-        r.read_summary = read_summary(p);
         r.correction_min = *lo;
         r.correction_max = *hi;
     } catch (const InputError& e) {

@@ -800,7 +800,8 @@ fs::path corrected_output_path(const fs::path& input, const fs::path& dir) {
     return dir / name;
 }
 
-void check_output_path(const fs::path& output, std::span<const fs::path> inputs, bool replace_existing) {
+void check_output_path(const fs::path& output, std::span<const fs::path> inputs, bool replace_existing,
+                       std::string_view how_to_replace) {
     std::error_code ec;
     const auto status = fs::status(output, ec);
     if (!fs::exists(status)) return;
@@ -809,8 +810,8 @@ void check_output_path(const fs::path& output, std::span<const fs::path> inputs,
         if (fs::equivalent(output, in, eq))
             throw FileError(output.string() + ": is the input file " + in.string() + "; an input is never overwritten");
     }
+    if (!replace_existing) throw FileError(output.string() + ": exists; " + std::string(how_to_replace));
     if (fs::is_directory(status)) throw FileError(output.string() + ": is a directory");
-    if (!replace_existing) throw FileError(output.string() + ": exists; it is not replaced unless asked");
 }
 
 void write_file_atomically(const fs::path& target, const std::function<void(std::ostream&)>& write,

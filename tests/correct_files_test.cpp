@@ -58,10 +58,7 @@ protected:
     }
 
     static FileCorrectionSettings settings_for(const CapillarySpecimen& c) {
-        FileCorrectionSettings s;
-        s.setup = correction_setup(c);
-        s.description = provenance_lines(c);
-        s.warnings = c.warnings;
+        FileCorrectionSettings s = file_correction_settings(c);
         s.command = "test command";
         s.date_utc = "2026-01-02T03:04:05Z";
         return s;
@@ -96,9 +93,7 @@ TEST_F(CorrectFiles, CylinderColumnsAreMeasuredTimesOneOverA) {
 TEST_F(CorrectFiles, SymmetricReflectionMatchesTheClosedForm) {
     const fs::path in = write("plate.xy", kScan);
     const PlateSpecimen p = plate_from_mu_t(PlateMode::reflection, 0.3);
-    FileCorrectionSettings s;
-    s.setup = correction_setup(p);
-    s.description = provenance_lines(p);
+    const FileCorrectionSettings s = file_correction_settings(p);
     const auto results = correct_pattern_files(std::vector{in}, dir_, s);
     ASSERT_EQ(results[0].outcome, FileOutcome::written) << results[0].error;
     for (const auto& row : rows(results[0].output)) {

@@ -43,6 +43,11 @@ struct FileCorrectionSettings {
     std::size_t jobs = 0;                    ///< files at once; 0: one per core
 };
 
+/// Settings for correcting files of a specimen: its setup, provenance lines and warnings;
+/// the rest at its defaults, for the caller to fill in.
+FileCorrectionSettings file_correction_settings(const CapillarySpecimen& capillary);
+FileCorrectionSettings file_correction_settings(const PlateSpecimen& plate);
+
 enum class FileOutcome { written, bad_input, file_error, internal_error };
 
 struct FileCorrectionResult {

@@ -103,9 +103,10 @@ std::string render_pattern(const Pattern& source, std::span<const double> intens
 std::filesystem::path corrected_output_path(const std::filesystem::path& input, const std::filesystem::path& dir);
 
 /// Refuses an output that is one of the inputs (std::filesystem::equivalent, whatever
-/// `replace_existing` says), or that exists when replace_existing is false. FileError.
+/// `replace_existing` says), that exists when replace_existing is false ("NAME: exists; "
+/// followed by `how_to_replace`), or that is a directory. FileError.
 void check_output_path(const std::filesystem::path& output, std::span<const std::filesystem::path> inputs,
-                       bool replace_existing);
+                       bool replace_existing, std::string_view how_to_replace = "it is not replaced unless asked");
 
 /// Writes through a temporary file in the target's folder, renamed over the target at
 /// the end; any failure (including `write` throwing) removes the temporary file and

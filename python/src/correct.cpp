@@ -230,14 +230,9 @@ void bind_correct(py::module_& m) {
            bool force, std::optional<std::size_t> jobs, std::optional<std::string> command, bool raise_on_error) {
             FileCorrectionSettings settings;
             if (py::isinstance<CapillarySpecimen>(specimen)) {
-                const auto c = specimen.cast<CapillarySpecimen>();
-                settings.setup = correction_setup(c);
-                settings.description = provenance_lines(c);
-                settings.warnings = c.warnings;
+                settings = file_correction_settings(specimen.cast<CapillarySpecimen>());
             } else if (py::isinstance<PlateSpecimen>(specimen)) {
-                const auto p = specimen.cast<PlateSpecimen>();
-                settings.setup = correction_setup(p);
-                settings.description = provenance_lines(p);
+                settings = file_correction_settings(specimen.cast<PlateSpecimen>());
             } else {
                 throw py::type_error("specimen: expected a CapillarySpecimen or a PlateSpecimen (capillary(), "
                                      "capillary_from_mu_R(), plate(), plate_from_mu_t())");

@@ -24,6 +24,21 @@ std::optional<std::string> nonempty(const std::string& text) {
     return text;
 }
 
+/// The properties both specimen types share: where the sample's μ came from. `given` names
+/// what is given directly on the other route ("μR", "μt").
+template <class Specimen>
+void def_source_properties(py::class_<Specimen>& cls, const std::string& given) {
+    const std::string when_given = " (None when " + given + " was given directly)";
+    cls.def_readonly("sample", &Specimen::sample, ("The material's name, or 'given as " + given + "'.").c_str())
+        .def_property_readonly("radiation", [](const Specimen& s) { return nonempty(s.radiation); },
+                               "Radiation label; None when nothing needed an energy.")
+        .def_readonly("energy_keV", &Specimen::energy_keV, "keV, or None.")
+        .def_readonly("mu_per_cm", &Specimen::mu_per_cm, ("The sample's μ, 1/cm" + when_given + ".").c_str())
+        .def_readonly("density_g_cm3", &Specimen::density_g_cm3, "Density used (× packing), g/cm³.")
+        .def_property_readonly("table", [](const Specimen& s) { return table_name(s.table); },
+                               ("'elam' or 'chantler'" + when_given + ".").c_str());
+}
+
 }  // namespace
 
 void bind_specimen(py::module_& m) {
@@ -35,19 +50,12 @@ void bind_specimen(py::module_& m) {
         .def_readonly("mu_R", &CapillaryWall::mu_R, "The WALL's μ times the SAMPLE radius (--mu-r-container).")
         .def_readonly("radius_ratio", &CapillaryWall::radius_ratio, "Outer wall radius / sample radius.");
 
-    py::class_<CapillarySpecimen>(
+    py::class_<CapillarySpecimen> capillary_class(
         m, "CapillarySpecimen",
         "A capillary filled with the sample: μR and the wall, with what they came from.\n"
-        "Build one with capillary(...) or capillary_from_mu_R(...), add the wall with with_wall(...).")
-        .def_readonly("sample", &CapillarySpecimen::sample, "The material's name, or 'given as μR'.")
-        .def_property_readonly("radiation", [](const CapillarySpecimen& c) { return nonempty(c.radiation); },
-                               "Radiation label; None when μR was given directly.")
-        .def_readonly("energy_keV", &CapillarySpecimen::energy_keV, "keV (None when μR was given directly).")
-        .def_readonly("mu_per_cm", &CapillarySpecimen::mu_per_cm, "The sample's μ, 1/cm (None when given directly).")
-        .def_readonly("inner_diameter_cm", &CapillarySpecimen::inner_diameter_cm, "Inner diameter, cm.")
-        .def_readonly("density_g_cm3", &CapillarySpecimen::density_g_cm3, "Density used (× packing), g/cm³.")
-        .def_property_readonly("table", [](const CapillarySpecimen& c) { return table_name(c.table); },
-                               "'elam' or 'chantler' (None when μR was given directly).")
+        "Build one with capillary(...) or capillary_from_mu_R(...), add the wall with with_wall(...).");
+    def_source_properties(capillary_class, "μR");
+    capillary_class.def_readonly("inner_diameter_cm", &CapillarySpecimen::inner_diameter_cm, "Inner diameter, cm.")
         .def_readonly("mu_R", &CapillarySpecimen::mu_R, "μ × sample radius (0 < μR <= 30).")
         .def_readonly("wall", &CapillarySpecimen::wall, "CapillaryWall, or None.")
         .def_readonly("warnings", &CapillarySpecimen::warnings, "What the command line prints as warnings.")
@@ -92,19 +100,12 @@ void bind_specimen(py::module_& m) {
         .def_readonly("thickness_cm", &WindowFoils::thickness_cm, "Thickness of ONE foil, cm.")
         .def_readonly("mu_t", &WindowFoils::mu_t, "μt of ONE foil.");
 
-    py::class_<PlateSpecimen>(
+    py::class_<PlateSpecimen> plate_class(
         m, "PlateSpecimen",
         "A flat plate of the sample in one mode: μt, the incidence and the window foils, with what they\n"
-        "came from. Build one with plate(...) or plate_from_mu_t(...).")
-        .def_readonly("sample", &PlateSpecimen::sample, "The material's name, or 'given as μt'.")
-        .def_property_readonly("radiation", [](const PlateSpecimen& p) { return nonempty(p.radiation); },
-                               "Radiation label; None when nothing needed an energy.")
-        .def_readonly("energy_keV", &PlateSpecimen::energy_keV, "keV, or None.")
-        .def_readonly("mu_per_cm", &PlateSpecimen::mu_per_cm, "The sample's μ, 1/cm (None when μt was given directly).")
-        .def_readonly("thickness_cm", &PlateSpecimen::thickness_cm, "Plate thickness, cm (None when μt was given).")
-        .def_readonly("density_g_cm3", &PlateSpecimen::density_g_cm3, "Density used (× packing), g/cm³.")
-        .def_property_readonly("table", [](const PlateSpecimen& p) { return table_name(p.table); },
-                               "'elam' or 'chantler' (None when μt was given directly).")
+        "came from. Build one with plate(...) or plate_from_mu_t(...).");
+    def_source_properties(plate_class, "μt");
+    plate_class.def_readonly("thickness_cm", &PlateSpecimen::thickness_cm, "Plate thickness, cm (None when μt was given).")
         .def_property_readonly("mode", [](const PlateSpecimen& p) { return std::string(to_string(p.mode)); },
                                "'reflection', 'transmission-normal' or 'transmission-symmetric'.")
         .def_readonly("mu_t", &PlateSpecimen::mu_t, "μ × thickness.")

@@ -127,12 +127,6 @@ std::vector<std::pair<std::string, std::string>> summary_of(const PlateSpecimen&
     return sum;
 }
 
-PlateMode plate_mode_of(CorrectionGeometry g) {
-    return g == CorrectionGeometry::reflection            ? PlateMode::reflection
-           : g == CorrectionGeometry::transmission_normal ? PlateMode::transmission_normal
-                                                          : PlateMode::transmission_symmetric;
-}
-
 Setup resolve(const CorrectOptions& o) {
     Setup s;
     FileCorrectionSettings& f = s.settings;
@@ -143,16 +137,14 @@ Setup resolve(const CorrectOptions& o) {
         if (any_given(o.plate))
             throw InputError(first_given(o.plate) + " applies to the plate geometries, not to --geometry cylinder");
         const CapillarySpecimen c = resolve_cylinder(o.sample, o.radiation, o.table, o.cylinder);
-        f.setup = correction_setup(c);
-        f.description = provenance_lines(c);
-        f.warnings = c.warnings;
+        f = file_correction_settings(c);
         s.summary = summary_of(c);
     } else {
         if (any_given(o.cylinder))
             throw InputError(first_given(o.cylinder) + " applies to --geometry cylinder, not to " + o.geometry);
-        const PlateSpecimen p = resolve_plate(plate_mode_of(g), o.sample, o.radiation, o.table, o.plate);
-        f.setup = correction_setup(p);
-        f.description = provenance_lines(p);
+        // The plate geometries carry the names of the plate modes.
+        const PlateSpecimen p = resolve_plate(parse_plate_mode(o.geometry), o.sample, o.radiation, o.table, o.plate);
+        f = file_correction_settings(p);
         s.summary = summary_of(p);
     }
 
